@@ -1,0 +1,57 @@
+import { Router, type Request } from 'express'
+import { rateLimit } from 'express-rate-limit'
+import type { PassportStatic } from 'passport'
+import { signInBodySchema, signUpBodySchema } from '../../shared/api/schemas.ts'
+import type { Db } from '../db/knex.ts'
+import { HttpError, unauthorized } from '../errors.ts'
+import { requireUser } from '../middleware/require-user.ts'
+import { validateBody } from '../middleware/validate.ts'
+import { createUser, toUser } from '../modules/users/users.service.ts'
+
+const logIn = (req: Request, user: Express.User) =>
+  new Promise<void>((resolve, reject) => req.logIn(user, (err) => (err ? reject(err) : resolve())))
+
+export function authRouter(db: Db, passport: PassportStatic, signInLimit: number): Router {
+  const router = Router()
+  const signInLimiter = rateLimit({
+    windowMs: 15 * 60 * 1000,
+    limit: signInLimit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, res) => {
+      res.status(429).json({
+        error: { code: 'too_many_attempts', message: 'Too many sign-in attempts; wait a few minutes' },
+      })
+    },
+  })
+
+  router.post('/sign-up', validateBody(signUpBodySchema), async (req, res) => {
+    const user = toUser(await createUser(db, req.body))
+    await logIn(req, user)
+    res.status(201).json({ user })
+  })
+
+  router.post('/sign-in', signInLimiter, validateBody(signInBodySchema), (req, res, next) => {
+    passport.authenticate('local', (err: unknown, user: Express.User | false) => {
+      if (err) return next(err)
+      if (!user) return next(new HttpError(401, 'bad_credentials', 'Wrong e-mail or password'))
+      logIn(req, user)
+        .then(() => res.json({ user }))
+        .catch(next)
+    })(req, res, next)
+  })
+
+  router.post('/sign-out', (req, res, next) => {
+    req.logOut((err) => {
+      if (err) return next(err)
+      req.session.destroy(() => res.status(204).end())
+    })
+  })
+
+  router.get('/me', requireUser, (req, res) => {
+    if (!req.user) throw unauthorized()
+    res.json({ user: req.user })
+  })
+
+  return router
+}

@@ -1,0 +1,50 @@
+/**
+ * The demo scenario (our own invention): a design firm working on Fernhollow Community Hall, a
+ * fictional two-storey hall. Three people with the three working roles.
+ */
+import type { Db } from '../db/knex.ts'
+import { addMember, insertProject } from '../modules/projects/projects.repo.ts'
+import { insertUser } from '../modules/users/users.repo.ts'
+import { hashPassword, pickColor } from '../modules/users/users.service.ts'
+
+export const DEMO_PASSWORD = 'tributary-demo'
+
+export const DEMO_ACCOUNTS = [
+  { email: 'avery@example.test', name: 'Avery Lindqvist', role: 'owner' },
+  { email: 'blake@example.test', name: 'Blake Okonkwo', role: 'editor' },
+  { email: 'casey@example.test', name: 'Casey Marchetti', role: 'reviewer' },
+] as const
+
+export const DEMO_PROJECT = {
+  name: 'Fernhollow Community Hall',
+  description:
+    'Domestic cold and hot water for a two-storey community hall: washrooms with flush valve ' +
+    'batteries on both floors, a kitchenette, a janitor closet and exterior hose bibbs.',
+}
+
+/** True when no user exists yet (the demo is only seeded into an empty database). */
+export async function isEmpty(db: Db): Promise<boolean> {
+  const row = await db('users').count<{ count: string }[]>('* as count').first()
+  return Number(row?.count ?? 0) === 0
+}
+
+/** Inserts the demo accounts and project in one transaction; returns the project id. */
+export async function seedDemo(db: Db): Promise<string> {
+  const passwordHash = await hashPassword(DEMO_PASSWORD)
+  return db.transaction(async (trx) => {
+    const users = []
+    for (const account of DEMO_ACCOUNTS) {
+      const user = await insertUser(trx, {
+        email: account.email,
+        name: account.name,
+        password_hash: passwordHash,
+        color: pickColor(account.email),
+      })
+      users.push({ ...account, id: user.id })
+    }
+    const owner = users[0]!
+    const project = await insertProject(trx, { ...DEMO_PROJECT, units: 'us', created_by: owner.id })
+    for (const user of users) await addMember(trx, project.id, user.id, user.role)
+    return project.id
+  })
+}
