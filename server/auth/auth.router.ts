@@ -1,9 +1,9 @@
 import { Router, type Request } from 'express'
 import { rateLimit } from 'express-rate-limit'
-import type { PassportStatic } from 'passport'
 import { signInBodySchema, signUpBodySchema } from '../../shared/api/schemas.ts'
 import type { Db } from '../db/knex.ts'
 import { HttpError, unauthorized } from '../errors.ts'
+import type { createPassport } from './passport.ts'
 import { requireUser } from '../middleware/require-user.ts'
 import { validateBody } from '../middleware/validate.ts'
 import { createUser, toUser } from '../modules/users/users.service.ts'
@@ -11,7 +11,7 @@ import { createUser, toUser } from '../modules/users/users.service.ts'
 const logIn = (req: Request, user: Express.User) =>
   new Promise<void>((resolve, reject) => req.logIn(user, (err) => (err ? reject(err) : resolve())))
 
-export function authRouter(db: Db, passport: PassportStatic, signInLimit: number): Router {
+export function authRouter(db: Db, passport: ReturnType<typeof createPassport>, signInLimit: number): Router {
   const router = Router()
   const signInLimiter = rateLimit({
     windowMs: 15 * 60 * 1000,

@@ -1,6 +1,6 @@
 import { Passport } from 'passport'
 import { Strategy as LocalStrategy } from 'passport-local'
-import type { User } from '../../shared/api/schemas.ts'
+import type { User as SharedUser } from '../../shared/api/schemas.ts'
 import type { Db } from '../db/knex.ts'
 import { findUserById } from '../modules/users/users.repo.ts'
 import { checkCredentials, toUser } from '../modules/users/users.service.ts'
@@ -8,8 +8,9 @@ import { checkCredentials, toUser } from '../modules/users/users.service.ts'
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
+    // The session holds the public user shape, never the password hash.
     // eslint-disable-next-line @typescript-eslint/no-empty-object-type
-    interface User extends Omit<import('../../shared/api/schemas.ts').User, never> {}
+    interface User extends SharedUser {}
   }
 }
 
@@ -23,7 +24,7 @@ export function createPassport(db: Db) {
         .catch(done)
     }),
   )
-  passport.serializeUser((user, done) => done(null, (user as User).id))
+  passport.serializeUser((user, done) => done(null, (user as SharedUser).id))
   passport.deserializeUser((id: string, done) => {
     findUserById(db, id)
       .then((row) => done(null, row ? toUser(row) : false))

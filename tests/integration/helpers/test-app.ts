@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto'
 import pg from 'pg'
-import supertest from 'supertest'
+import type supertest from 'supertest'
 import { createApp } from '../../../server/app.ts'
 import { readEnv, type Env } from '../../../server/config/env.ts'
 import { openDb, type Db } from '../../../server/db/knex.ts'
