@@ -9,6 +9,7 @@ import { sessionMiddleware } from './auth/session.ts'
 import type { Env } from './config/env.ts'
 import type { Db } from './db/knex.ts'
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts'
+import { diagramsRouter } from './modules/diagrams/diagrams.router.ts'
 import { projectsRouter } from './modules/projects/projects.router.ts'
 
 const distDir = fileURLToPath(new URL('../dist', import.meta.url))
@@ -43,6 +44,7 @@ export function createApp(env: Env, db: Db, pool: pg.Pool): AppParts {
     }
   })
   app.use('/api/auth', authRouter(db, passport, env.SIGN_IN_LIMIT))
+  app.use('/api/projects/:projectId/diagrams', diagramsRouter(db))
   app.use('/api/projects', projectsRouter(db))
   app.use('/api', apiNotFound)
 

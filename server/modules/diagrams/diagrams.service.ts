@@ -1,0 +1,116 @@
+import type { DiagramRecord, DiagramSummary, SaveDiagramBody } from '../../../shared/api/diagrams.ts'
+import { emptyDiagram, type Diagram } from '../../../shared/document/model.ts'
+import type { Db } from '../../db/knex.ts'
+import { conflict, notFound } from '../../errors.ts'
+import {
+  deleteDiagramRow,
+  findDiagramRow,
+  insertDiagramRow,
+  listDiagramRows,
+  renameDiagramRow,
+  saveDocumentIfRevision,
+  touchProject,
+  type DiagramRow,
+} from './diagrams.repo.ts'
+
+function toSummary(row: DiagramRow): DiagramSummary {
+  return {
+    id: row.id,
+    projectId: row.project_id,
+    name: row.name,
+    revision: row.revision,
+    createdAt: row.created_at.toISOString(),
+    updatedAt: row.updated_at.toISOString(),
+    updatedBy: row.updated_by ? { id: row.updated_by, name: row.updated_by_name ?? '' } : null,
+  }
+}
+
+// The row's name is the diagram's name; the document carries a copy for exports.
+const toRecord = (row: DiagramRow): DiagramRecord => ({
+  ...toSummary(row),
+  document: { ...row.document, name: row.name },
+})
+
+export async function listDiagrams(db: Db, projectId: string): Promise<DiagramSummary[]> {
+  return (await listDiagramRows(db, projectId)).map(toSummary)
+}
+
+export async function getDiagram(db: Db, projectId: string, id: string): Promise<DiagramRecord> {
+  const row = await findDiagramRow(db, projectId, id)
+  if (!row) throw notFound('No such diagram in this project')
+  return toRecord(row)
+}
+
+export async function createDiagram(
+  db: Db,
+  projectId: string,
+  userId: string,
+  input: { name: string; document?: Diagram },
+): Promise<DiagramRecord> {
+  const document = { ...(input.document ?? emptyDiagram()), name: input.name }
+  const id = await db.transaction(async (trx) => {
+    const newId = await insertDiagramRow(trx, {
+      project_id: projectId,
+      name: input.name,
+      document,
+      created_by: userId,
+    })
+    await touchProject(trx, projectId)
+    return newId
+  })
+  return getDiagram(db, projectId, id)
+}
+
+export async function duplicateDiagram(
+  db: Db,
+  projectId: string,
+  id: string,
+  userId: string,
+): Promise<DiagramRecord> {
+  const source = await getDiagram(db, projectId, id)
+  return createDiagram(db, projectId, userId, {
+    name: `${source.name} (copy)`.slice(0, 120),
+    document: source.document,
+  })
+}
+
+/**
+ * Stores a whole document edited on `baseRevision`. A save made on an older revision is refused
+ * (409) rather than silently overwriting someone else's work.
+ */
+export async function saveDocument(
+  db: Db,
+  projectId: string,
+  id: string,
+  userId: string,
+  body: SaveDiagramBody,
+): Promise<{ revision: number; updatedAt: string }> {
+  const current = await findDiagramRow(db, projectId, id)
+  if (!current) throw notFound('No such diagram in this project')
+  const document = { ...body.document, name: current.name }
+  const saved = await saveDocumentIfRevision(db, id, body.baseRevision, document, userId)
+  if (!saved) {
+    throw conflict(
+      `baseRevision: the diagram is at revision ${current.revision}, not ${body.baseRevision}; ` +
+        'reload to get the latest version',
+    )
+  }
+  await touchProject(db, projectId)
+  return { revision: saved.revision, updatedAt: saved.updated_at.toISOString() }
+}
+
+export async function renameDiagram(
+  db: Db,
+  projectId: string,
+  id: string,
+  userId: string,
+  name: string,
+): Promise<DiagramRecord> {
+  await getDiagram(db, projectId, id)
+  await renameDiagramRow(db, id, name, userId)
+  return getDiagram(db, projectId, id)
+}
+
+export async function deleteDiagram(db: Db, projectId: string, id: string): Promise<void> {
+  if (!(await deleteDiagramRow(db, projectId, id))) throw notFound('No such diagram in this project')
+}
