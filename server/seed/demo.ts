@@ -2,7 +2,9 @@
  * The demo scenario (our own invention): a design firm working on Fernhollow Community Hall, a
  * fictional two-storey hall. Three people with the three working roles.
  */
+import { fernhollowHallDiagram } from '../../shared/demo/fernhollow-hall.ts'
 import type { Db } from '../db/knex.ts'
+import { insertDiagramRow } from '../modules/diagrams/diagrams.repo.ts'
 import { addMember, insertProject } from '../modules/projects/projects.repo.ts'
 import { insertUser } from '../modules/users/users.repo.ts'
 import { hashPassword, pickColor } from '../modules/users/users.service.ts'
@@ -22,13 +24,15 @@ export const DEMO_PROJECT = {
     'batteries on both floors, a kitchenette, a janitor closet and exterior hose bibbs.',
 }
 
+export const DEMO_DIAGRAM_NAME = 'Domestic water'
+
 /** True when no user exists yet (the demo is only seeded into an empty database). */
 export async function isEmpty(db: Db): Promise<boolean> {
   const row = await db('users').count<{ count: string }[]>('* as count').first()
   return Number(row?.count ?? 0) === 0
 }
 
-/** Inserts the demo accounts and project in one transaction; returns the project id. */
+/** Inserts the demo accounts, project and riser diagram in one transaction; returns the project id. */
 export async function seedDemo(db: Db): Promise<string> {
   const passwordHash = await hashPassword(DEMO_PASSWORD)
   return db.transaction(async (trx) => {
@@ -45,6 +49,12 @@ export async function seedDemo(db: Db): Promise<string> {
     const owner = users[0]!
     const project = await insertProject(trx, { ...DEMO_PROJECT, units: 'us', created_by: owner.id })
     for (const user of users) await addMember(trx, project.id, user.id, user.role)
+    await insertDiagramRow(trx, {
+      project_id: project.id,
+      name: DEMO_DIAGRAM_NAME,
+      document: { ...fernhollowHallDiagram, name: DEMO_DIAGRAM_NAME },
+      created_by: owner.id,
+    })
     return project.id
   })
 }

@@ -13,6 +13,12 @@ export const router = createRouter({
       children: [
         { path: 'projects', name: 'projects', component: () => import('@/views/ProjectListView.vue') },
         {
+          path: 'projects/:projectId/diagrams/:diagramId',
+          name: 'editor',
+          component: () => import('@/views/DiagramEditorView.vue'),
+          props: true,
+        },
+        {
           path: 'projects/:projectId',
           name: 'project',
           component: () => import('@/views/ProjectView.vue'),
