@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest'
 import { shortcutFor } from '../../../../src/features/editor/shortcuts/shortcuts'
 
-const key = (k: string, mods: Partial<Record<'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey', boolean>> = {}) => ({
+const key = (
+  k: string,
+  mods: Partial<Record<'ctrlKey' | 'metaKey' | 'shiftKey' | 'altKey', boolean>> = {},
+) => ({
   key: k,
   ctrlKey: false,
   metaKey: false,

@@ -1,0 +1,109 @@
+/**
+ * Calculation benchmark: `npm run bench`. On generated riser trees of 1,000, 10,000 and 100,000
+ * nodes it times (medians):
+ * - floor: a typed-array post-order sum of one load per node over the same tree;
+ * - full recompute: sums, sizes, pressures and the budget check on the compiled state;
+ * - computeDiagram: validation + compile + recompute + the full result objects;
+ * - incremental: one fixture count edit through the live calculation.
+ * Targets (issue #3): incremental at 10,000 nodes ≤ 50 µs; full recompute ≤ 10× the floor.
+ */
+import { computeDiagram } from '../shared/calc/compute.ts'
+import { Engine } from '../shared/calc/engine.ts'
+import { createLiveCalculation } from '../shared/calc/incremental.ts'
+import { riserTreeDiagram } from '../shared/demo/riser-tree.ts'
+import type { Diagram } from '../shared/document/model.ts'
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b)
+  return s[s.length >> 1]!
+}
+
+function time(fn: () => void, reps: number): number {
+  const xs: number[] = []
+  for (let i = 0; i < reps; i++) {
+    const t = performance.now()
+    fn()
+    xs.push(performance.now() - t)
+  }
+  return median(xs)
+}
+
+// The floor: parent links in pre-order, one reverse pass adding each node's load to its parent.
+function floorSum(doc: Diagram): () => number {
+  const index = new Map(doc.nodes.map((n, i) => [n.id, i]))
+  const parent = new Int32Array(doc.nodes.length).fill(-1)
+  for (const p of doc.pipes)
+    if (parent[index.get(p.to)!] === -1) parent[index.get(p.to)!] = index.get(p.from)!
+  const kids: number[][] = doc.nodes.map(() => [])
+  parent.forEach((p, i) => p >= 0 && kids[p]!.push(i))
+  const order: number[] = []
+  const stack = [index.get('supply')!]
+  while (stack.length > 0) {
+    const v = stack.pop()!
+    order.push(v)
+    for (const k of kids[v]!) stack.push(k)
+  }
+  const ord = Int32Array.from(order)
+  const par = Int32Array.from(ord, (v) => parent[v]!)
+  const own = Float64Array.from(ord, (v) => (doc.nodes[v]!.kind === 'fixture' ? 1.4 : 0))
+  const pos = new Int32Array(doc.nodes.length)
+  ord.forEach((v, k) => (pos[v] = k))
+  const parPos = Int32Array.from(par, (p) => (p < 0 ? -1 : pos[p]!))
+  const sum = new Float64Array(ord.length)
+  return () => {
+    sum.set(own)
+    for (let k = sum.length - 1; k > 0; k--) sum[parPos[k]!]! += sum[k]!
+    return sum[0]!
+  }
+}
+
+const fmt = (ms: number) => (ms < 1 ? `${(ms * 1000).toFixed(1)} µs` : `${ms.toFixed(2)} ms`)
+
+console.log(
+  'size      nodes   pipes   floor      full       full/floor  computeDiagram  incremental  modes',
+)
+for (const target of [1_000, 10_000, 100_000]) {
+  const doc = riserTreeDiagram(target)
+  const reps = target >= 100_000 ? 7 : 25
+  const floor = floorSum(doc)
+  const floorMs = time(floor, reps * 4)
+  const engine = new Engine({ ...doc, nodes: doc.nodes.slice(), pipes: doc.pipes.slice() })
+  const fullMs = time(() => engine.recomputeAll(), reps)
+  // Warm the JIT first: the editor calls computeDiagram on every edit.
+  if (target < 100_000) for (let i = 0; i < 20; i++) computeDiagram(doc)
+  const computeMs = time(() => computeDiagram(doc), target >= 100_000 ? 3 : 15)
+
+  const live = createLiveCalculation(doc)
+  const fixtures = doc.nodes.filter((n) => n.kind === 'fixture').map((n) => n.id)
+  let seed = 12345
+  const rand = () => (seed = (seed * 1103515245 + 12345) & 0x7fffffff) / 0x7fffffff
+  const modes: Record<string, number> = {}
+  const xs: number[] = []
+  const counts = new Map<string, number>()
+  for (let i = 0; i < 2000; i++) {
+    const id = fixtures[Math.floor(rand() * fixtures.length)]!
+    const count = (counts.get(id) ?? 1) === 1 ? 2 : 1
+    counts.set(id, count)
+    const t = performance.now()
+    const u = live.apply({ type: 'node.update', id, patch: { count } })
+    xs.push(performance.now() - t)
+    modes[u.mode] = (modes[u.mode] ?? 0) + 1
+  }
+  const incMs = median(xs.slice(200))
+  console.log(
+    [
+      String(target).padEnd(8),
+      String(doc.nodes.length).padStart(7),
+      String(doc.pipes.length).padStart(7),
+      fmt(floorMs).padStart(10),
+      fmt(fullMs).padStart(10),
+      `${(fullMs / floorMs).toFixed(1)}×`.padStart(10),
+      fmt(computeMs).padStart(15),
+      fmt(incMs).padStart(12),
+      ' ' +
+        Object.entries(modes)
+          .map(([k, v]) => `${k} ${v}`)
+          .join(', '),
+    ].join(' '),
+  )
+}

@@ -1,0 +1,174 @@
+/**
+ * Turns the engine's arrays into the result contract (types.ts) and the list of issues. The
+ * issues are sorted (errors first, then by code and ids) so that the result does not depend on
+ * the order of nodes and pipes in the document.
+ */
+import { FIXTURES } from './fixtures.ts'
+import type { Engine } from './engine.ts'
+import { KIND } from './graph.ts'
+import type { CalcIssue, DiagramResult, NodeResult, PipeResult } from './types.ts'
+
+const kpa = (v: number) => `${v.toFixed(1)} kPa`
+
+/** Pressure entering pipe q (leaving its from-node), or null when unknown. */
+export function inletPressure(e: Engine, q: number): number | null {
+  const p = e.g.parent[q]!
+  const v = e.g.from[q]!
+  if (p < 0) return v === e.g.supply ? e.nodeOut(v, 0) : null
+  return e.known[p] ? e.nodeOut(v, e.outP[p]!) : null
+}
+
+/** The result of one pipe. */
+export function pipeResult(e: Engine, q: number): PipeResult {
+  const pipe = e.doc.pipes[q]!
+  const m = e.material[q]
+  const s = e.size[q]!
+  const sized = s >= 0 && m !== null
+  return {
+    id: pipe.id,
+    system: pipe.system,
+    load: e.load[q]!,
+    flushValveClosets: e.sWC[q]!,
+    flushValveUrinals: e.sU[q]!,
+    curve: e.flushValve[q] ? 'flush-valve' : 'flush-tank',
+    demandTable: e.tableKey,
+    fixtureFlowLps: e.fixtureFlow[q]!,
+    equipmentFlowLps: e.flow[q]! - e.fixtureFlow[q]!,
+    flowLps: e.flow[q]!,
+    material: m?.key ?? pipe.material ?? e.doc.settings.material,
+    nominal: sized ? m.sizes[s]!.nominal : null,
+    locked: pipe.nominal !== undefined,
+    insideDiameterMm: sized ? m.sizes[s]!.insideDiameterMm : null,
+    velocityMps: sized ? e.velocity[q]! : null,
+    equivalentLengthM: e.leq[q]!,
+    lossKPa: sized ? e.friction[q]! : null,
+    inletPressureKPa: e.known[q] ? inletPressure(e, q) : null,
+    outletPressureKPa: e.known[q] ? e.outP[q]! : null,
+  }
+}
+
+/** The result of one node: flowing pressure on its outlet side (a fixture: its lower inlet). */
+export function nodeResult(e: Engine, v: number): NodeResult {
+  const id = e.nodeIds[v]!
+  if (v === e.g.supply) {
+    const p = e.nodeOut(v, 0)
+    return { id, pressureKPa: p, staticPressureKPa: p }
+  }
+  let pressure: number | null = null
+  let statics: number | null = null
+  const kind = e.g.nodeKind[v]!
+  for (let side = 0; side < 2; side++) {
+    const q = side === 0 ? e.g.inCold[v]! : e.g.inHot[v]!
+    if (q < 0 || !e.g.rooted[q]) continue
+    const st = kind === KIND.fixture ? e.staticOut[q]! : e.nodeOutStatic(v, e.staticOut[q]!)
+    statics = statics === null ? st : Math.max(statics, st)
+    if (!e.known[q]) continue
+    const p = kind === KIND.fixture ? e.outP[q]! : e.nodeOut(v, e.outP[q]!)
+    pressure = pressure === null ? p : Math.min(pressure, p)
+  }
+  return { id, pressureKPa: pressure, staticPressureKPa: statics }
+}
+
+/** Materialises the full result. */
+export function buildResult(e: Engine): DiagramResult {
+  const pipes: Record<string, PipeResult> = {}
+  const nodes: Record<string, NodeResult> = {}
+  const issues: CalcIssue[] = [...e.issues]
+  if (e.structuralOk) {
+    e.refreshPressures()
+    for (let q = 0; q < e.g.pipeCount; q++) pipes[e.pipeIds[q]!] = pipeResult(e, q)
+    for (let v = 0; v < e.g.nodeCount; v++) nodes[e.nodeIds[v]!] = nodeResult(e, v)
+    designIssues(e, pipes, nodes, issues)
+  }
+  issues.sort(compareIssues)
+  return { ok: !issues.some((i) => i.severity === 'error'), pipes, nodes, issues }
+}
+
+function compareIssues(a: CalcIssue, b: CalcIssue): number {
+  if (a.severity !== b.severity) return a.severity === 'error' ? -1 : 1
+  const ka = `${a.code}\u0000${a.ids.join(',')}\u0000${a.message}`
+  const kb = `${b.code}\u0000${b.ids.join(',')}\u0000${b.message}`
+  return ka < kb ? -1 : ka > kb ? 1 : 0
+}
+
+function designIssues(
+  e: Engine,
+  pipes: Record<string, PipeResult>,
+  nodes: Record<string, NodeResult>,
+  issues: CalcIssue[],
+): void {
+  const warn = (code: string, message: string, ids: string[]) =>
+    issues.push({ severity: 'warning', code, message, ids })
+  const { settings } = e.doc
+  for (let q = 0; q < e.g.pipeCount; q++) {
+    const r = pipes[e.pipeIds[q]!]!
+    if (e.invalid[q]) continue
+    if (e.size[q]! < 0) {
+      const limit = settings.velocityLimits[r.system]
+      const largest = e.material[q]!.sizes.at(-1)!.nominal
+      issues.push({
+        severity: 'error',
+        code: 'no-size-fits',
+        message:
+          `Pipe ${r.id}: even ${largest} ${r.material} carries ${r.flowLps.toFixed(2)} L/s ` +
+          `faster than ${limit} m/s.`,
+        ids: [r.id],
+      })
+      continue
+    }
+    const limit = settings.velocityLimits[r.system]
+    if (r.locked && r.velocityMps! > limit) {
+      warn(
+        'velocity-exceeded',
+        `Pipe ${r.id} (locked ${r.nominal}) runs at ${r.velocityMps!.toFixed(2)} m/s, above ${limit} m/s.`,
+        [r.id],
+      )
+    }
+    if (e.beyondTable[q]) {
+      warn(
+        'load-beyond-table',
+        `Pipe ${r.id}: ${r.load.toFixed(1)} WSFU is beyond the demand table; the last segment was extended.`,
+        [r.id],
+      )
+    }
+  }
+  for (let v = 0; v < e.g.nodeCount; v++) {
+    const node = e.doc.nodes[v]!
+    const r = nodes[node.id]!
+    if (v !== e.g.supply && r.staticPressureKPa === null) {
+      warn('unreached', `${node.kind} ${node.id} is not reached from the supply.`, [node.id])
+      continue
+    }
+    const need = e.req[v]!
+    if (r.pressureKPa !== null && need === need && r.pressureKPa < need) {
+      warn(
+        'below-min-pressure',
+        `${node.kind} ${node.id} gets ${kpa(r.pressureKPa)}; it needs ${kpa(need)}.`,
+        [node.id],
+      )
+    }
+    if (r.staticPressureKPa !== null && r.staticPressureKPa > settings.maxStaticKPa) {
+      warn(
+        'above-max-static',
+        `${node.id} sees ${kpa(r.staticPressureKPa)} static, above ${kpa(settings.maxStaticKPa)}.`,
+        [node.id],
+      )
+    }
+    const spec = node.kind === 'fixture' && !node.load ? FIXTURES[node.fixture] : undefined
+    if (
+      spec &&
+      ((e.g.inCold[v]! >= 0 && !spec.supplies.cold) || (e.g.inHot[v]! >= 0 && !spec.supplies.hot))
+    ) {
+      for (const system of ['cold', 'hot'] as const) {
+        const q = system === 'cold' ? e.g.inCold[v]! : e.g.inHot[v]!
+        if (q >= 0 && !spec.supplies[system]) {
+          warn(
+            'supply-not-used',
+            `${spec.label} ${node.id} takes no ${system} water; pipe ${e.pipeIds[q]} carries none.`,
+            [node.id, e.pipeIds[q]!],
+          )
+        }
+      }
+    }
+  }
+}
