@@ -1,0 +1,76 @@
+/**
+ * The data the editor hands to Vue Flow: what each node and pipe carries, the typed node and
+ * edge aliases, and the registered node and edge components. Handle ids and sides live in
+ * nodes/handles.ts and are re-exported here for the mapping code.
+ */
+import { markRaw } from 'vue'
+import type { Edge, EdgeTypesObject, Node, NodeTypesObject } from '@vue-flow/core'
+import type { CalcIssue, NodeResult, PipeResult } from '@shared/calc/types.ts'
+import type { NodeKind, NodeOfKind, Pipe } from '@shared/document/model.ts'
+import type { UnitSystem } from '@shared/units/system.ts'
+import PipeEdge from './edges/PipeEdge.vue'
+import BackflowPreventerNode from './nodes/BackflowPreventerNode.vue'
+import EquipmentNode from './nodes/EquipmentNode.vue'
+import FixtureNode from './nodes/FixtureNode.vue'
+import JunctionNode from './nodes/JunctionNode.vue'
+import MeterNode from './nodes/MeterNode.vue'
+import PressureReducingValveNode from './nodes/PressureReducingValveNode.vue'
+import SupplyNode from './nodes/SupplyNode.vue'
+import WaterHeaterNode from './nodes/WaterHeaterNode.vue'
+import type { RemoteSelection } from './nodes/selection-ring.ts'
+
+export { HANDLE, HANDLE_SIDES, sourceHandleFor, targetHandleFor } from './nodes/handles.ts'
+export type { HandleId } from './nodes/handles.ts'
+export type { RemoteSelection } from './nodes/selection-ring.ts'
+
+/** What a diagram node carries on the canvas; `K` narrows `node` for one kind's component. */
+export interface DiagramNodeData<K extends NodeKind = NodeKind> {
+  node: NodeOfKind<K>
+  /** Live result; absent until the calculation has reached the node. */
+  result?: NodeResult
+  /** Issues naming this node. */
+  problems: CalcIssue[]
+  units: UnitSystem
+  /** Other people who have this node selected. */
+  selectedBy?: RemoteSelection[]
+}
+
+/** What a pipe carries on the canvas. */
+export interface PipeEdgeData {
+  pipe: Pipe
+  result?: PipeResult
+  problems: CalcIssue[]
+  units: UnitSystem
+}
+
+/** Vue Flow type of every pipe edge. */
+export const PIPE_EDGE_TYPE = 'pipe'
+
+/** Nodes and pipes talk to the editor through Vue Flow's own events only, not custom ones. */
+type NoCustomEvents = Record<string, never>
+
+/** A canvas node; its `type` is the diagram node kind, so an unknown kind fails to compile. */
+export type DiagramFlowNode = Node<DiagramNodeData, NoCustomEvents, NodeKind>
+
+/**
+ * A canvas edge for one pipe. `selected` is not in Vue Flow's input edge type, but Vue Flow copies
+ * it onto the graph edge, so a store-driven selection can be passed in.
+ */
+export type PipeFlowEdge = Edge<PipeEdgeData, NoCustomEvents, typeof PIPE_EDGE_TYPE> & {
+  selected?: boolean
+}
+
+/** Node components by kind, for `<VueFlow :node-types>`. */
+export const nodeTypes = markRaw({
+  supply: SupplyNode,
+  meter: MeterNode,
+  'backflow-preventer': BackflowPreventerNode,
+  'pressure-reducing-valve': PressureReducingValveNode,
+  'water-heater': WaterHeaterNode,
+  junction: JunctionNode,
+  fixture: FixtureNode,
+  equipment: EquipmentNode,
+} satisfies Record<NodeKind, unknown>) as NodeTypesObject
+
+/** Edge components by type, for `<VueFlow :edge-types>`. */
+export const edgeTypes = markRaw({ [PIPE_EDGE_TYPE]: PipeEdge }) as EdgeTypesObject
