@@ -7,6 +7,7 @@ import type { Diagram } from '../document/model.ts'
 import { contributionOf } from './contributions.ts'
 import { DEMAND_TABLES } from './demand-tables.ts'
 import { FIXTURES } from './fixtures.ts'
+import { nominalInches } from './materials.ts'
 import { FLUSH_VALVE_SERIES, seriesLoad, seriesStep } from './series.ts'
 import type { DiagramResult, PipeResult } from './types.ts'
 import { KPA_PER_METRE, LOAD_SCALE } from './units.ts'
@@ -170,6 +171,21 @@ function describe(x: PipeExplanation, doc: Diagram): string[] {
       `  Size: ${p.nominal} ${p.material}${p.locked ? ' (locked)' : ''}, ID ${p.insideDiameterMm!.toFixed(2)} mm, ` +
         `velocity ${p.velocityMps!.toFixed(2)} m/s (limit ${limit} m/s).`,
     )
+    const min = p.fixtureMinimum
+    if (min && p.sizeBasis === 'fixture-minimum') {
+      lines.push(
+        `  Raised to ${min.nominal} in, the minimum supply for a ${min.label.toLowerCase()} ` +
+          `(${min.nodeId}), ${min.source}.`,
+      )
+    } else if (min && p.locked && nominalInches(p.nominal) < nominalInches(min.nominal)) {
+      lines.push(
+        `  Locked below ${min.nominal} in, the minimum supply for a ${min.label.toLowerCase()} ` +
+          `(${min.nodeId}), ${min.source}.`,
+      )
+    }
+    if (p.sizeBasis === 'pressure-budget') {
+      lines.push('  Enlarged by the pressure budget so the fixtures beyond keep their minimum.')
+    }
     lines.push(
       `  Friction (${doc.settings.frictionMethod}): ${p.lossKPa!.toFixed(2)} kPa over ` +
         `${p.equivalentLengthM.toFixed(2)} m (length + ${doc.settings.fittingAllowance * 100} % fittings).`,

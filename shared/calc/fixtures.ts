@@ -6,7 +6,9 @@
  *   flush valve series, as the plan-check worksheet that carries the series does (C* [S18]). The UPC
  *   prints a total only; cold and hot are each 3/4 of it for fixtures with both supplies (UPC
  *   note, M). For flush valve fixtures `upc` holds only what is added on top of the series.
- * Minimum flow pressures come from IPC Table 604.3 (C [S3]).
+ * Minimum flow pressures come from IPC Table 604.3 (C [S3]). Minimum supply sizes come from the
+ * "Min. branch pipe" column of UPC 2018 Table A 103.1 (C [S13], reference §2.2); they are applied
+ * under both load bases (docs/calculation.md §3 says why).
  */
 import type { Occupancy } from '../document/model.ts'
 import { psiToKPa } from './units.ts'
@@ -40,6 +42,11 @@ export interface FixtureSpec {
   /** Minimum flow pressure, kPa; null = the project default applies. */
   minPressureKPa: number | null
   minPressureSource: string
+  /** Smallest nominal size of the pipe that supplies the fixture ("1/2"), cold side. */
+  minNominal: string
+  /** The same for the hot supply (smaller only for a flush valve group: its hot side is 1/2 in). */
+  minNominalHot: string
+  minNominalSource: string
 }
 
 const cold = (total: number): LoadValues => ({ cold: total, hot: 0, total })
@@ -65,6 +72,12 @@ const LOW = (row: string) => ({
   minPressureKPa: psiToKPa(8),
   minPressureSource: `IPC Table 604.3 "${row}": 8 psi, C [S3]`,
 })
+// "Min. branch pipe" of UPC 2018 Table A 103.1 (C [S13]).
+const A103 = (nominal: string, row: string) => ({
+  minNominal: nominal,
+  minNominalHot: nominal,
+  minNominalSource: `UPC 2018 Table A 103.1 "${row}", min. branch pipe ${nominal} in, C [S13]`,
+})
 const NONE = { minPressureKPa: null, minPressureSource: 'not in IPC Table 604.3' }
 
 const BOTH = { cold: true, hot: true }
@@ -80,6 +93,7 @@ const list: FixtureSpec[] = [
     ipc: col(both(1.5, 1.5, 2.0), both(0.5, 0.5, 0.7), IPC_C),
     upc: same(upcBoth(1.0), UPC_C),
     ...LOW('Lavatory, public'),
+    ...A103('1/2', 'Lavatory'),
   },
   {
     key: 'water-closet-tank',
@@ -89,6 +103,7 @@ const list: FixtureSpec[] = [
     ipc: col(cold(5.0), cold(2.2), IPC_M),
     upc: same(cold(2.5), 'UPC 2018 Table A 103.1 (1.6 gpf gravity tank), C [S13]'),
     ...P604(20, 'Water closet, tank, close coupled'),
+    ...A103('1/2', 'Water closet, 1.6 gpf gravity tank'),
   },
   {
     key: 'water-closet-flush-valve',
@@ -98,6 +113,7 @@ const list: FixtureSpec[] = [
     ipc: col(cold(10.0), cold(6.0), IPC_M),
     upc: same(cold(0), 'carried by the flush valve series, C* [S18]'),
     ...P604(35, 'Water closet, siphonic, flushometer valve'),
+    ...A103('1', 'Water closet, 1.6 gpf flushometer valve'),
   },
   {
     key: 'urinal-tank',
@@ -108,6 +124,7 @@ const list: FixtureSpec[] = [
     ipc: same(cold(3.0), IPC_M),
     upc: same(cold(2.0), 'UPC 2018 Table A 103.1 (flush tank), C [S13]'),
     ...NONE,
+    ...A103('1/2', 'Urinal, flush tank'),
   },
   {
     key: 'urinal-flush-valve',
@@ -118,6 +135,7 @@ const list: FixtureSpec[] = [
     ipc: same(cold(5.0), `${IPC_M}, 3/4 in valve`),
     upc: same(cold(0), 'carried by the flush valve series, C* [S18]'),
     ...P604(25, 'Urinal, valve'),
+    ...A103('3/4', 'Urinal, 1.0 gpf flushometer valve'),
   },
   {
     key: 'bathtub',
@@ -127,6 +145,7 @@ const list: FixtureSpec[] = [
     ipc: col(both(3.0, 3.0, 4.0), both(1.0, 1.0, 1.4), IPC_C),
     upc: same(upcBoth(4.0), UPC_C),
     ...P604(20, 'Bathtub, balanced-pressure, thermostatic or combination mixing valve'),
+    ...A103('1/2', 'Bathtub or combination bath/shower (fill)'),
   },
   {
     key: 'shower',
@@ -136,6 +155,7 @@ const list: FixtureSpec[] = [
     ipc: col(both(3.0, 3.0, 4.0), both(1.0, 1.0, 1.4), IPC_M),
     upc: same(upcBoth(2.0), UPC_C),
     ...P604(20, 'Shower, balanced-pressure, thermostatic or combination mixing valve'),
+    ...A103('1/2', 'Shower, per head'),
   },
   {
     key: 'kitchen-sink',
@@ -146,6 +166,7 @@ const list: FixtureSpec[] = [
     ipc: col(both(3.0, 3.0, 4.0), both(1.0, 1.0, 1.4), IPC_C),
     upc: same(upcBoth(1.5), UPC_C),
     ...LOW('Sink, residential'),
+    ...A103('1/2', 'Sink, kitchen, domestic'),
   },
   {
     key: 'bar-sink',
@@ -156,6 +177,7 @@ const list: FixtureSpec[] = [
     ipc: col(both(1.5, 1.5, 2.0), both(0.5, 0.5, 0.7), 'as lavatory, IPC E103.3(2) footnote a (M)'),
     upc: col(upcBoth(2.0), upcBoth(1.0), UPC_C),
     ...LOW('Sink, residential'),
+    ...A103('1/2', 'Sink, bar'),
   },
   {
     key: 'service-sink',
@@ -165,6 +187,7 @@ const list: FixtureSpec[] = [
     ipc: same(both(2.25, 2.25, 3.0), `${IPC_C} (offices; no private row)`),
     upc: col(upcBoth(3.0), upcBoth(1.5), UPC_C),
     ...LOW('Sink, service'),
+    ...A103('1/2', 'Sink, service or mop basin'),
   },
   {
     key: 'laundry-tray',
@@ -174,6 +197,7 @@ const list: FixtureSpec[] = [
     ipc: same(both(1.0, 1.0, 1.4), `${IPC_C} (private; no public row)`),
     upc: same(upcBoth(1.5), UPC_C),
     ...LOW('Laundry tray'),
+    ...A103('1/2', 'Sink, laundry'),
   },
   {
     key: 'drinking-fountain',
@@ -183,6 +207,7 @@ const list: FixtureSpec[] = [
     ipc: same(cold(0.25), IPC_C),
     upc: col(cold(0.5), cold(0.5), 'UPC 2018 Table A 103.1, C [S13]'),
     ...LOW('Drinking fountain'),
+    ...A103('1/2', 'Drinking fountain or water cooler'),
   },
   {
     key: 'dishwasher',
@@ -192,6 +217,7 @@ const list: FixtureSpec[] = [
     ipc: same(hot(1.4), `${IPC_C} (private; no public row)`),
     upc: same(hot(1.5), 'UPC 2018 Table A 103.1 (domestic), C [S13]'),
     ...LOW('Dishwasher, residential'),
+    ...A103('1/2', 'Dishwasher, domestic'),
   },
   {
     key: 'clothes-washer',
@@ -201,6 +227,7 @@ const list: FixtureSpec[] = [
     ipc: col(both(2.25, 2.25, 3.0), both(1.0, 1.0, 1.4), `${IPC_M} (8 lb machine)`),
     upc: same(upcBoth(4.0), UPC_C),
     ...NONE,
+    ...A103('1/2', 'Clothes washer'),
   },
   {
     key: 'hose-bibb',
@@ -212,6 +239,7 @@ const list: FixtureSpec[] = [
     ipc: same(cold(2.5), 'UPC 2018 Table A 103.1, C [S13] (no IPC row)'),
     upc: same(cold(2.5), 'UPC 2018 Table A 103.1, C [S13]'),
     ...LOW('Sillcock, hose bibb'),
+    ...A103('1/2', 'Hose bibb'),
   },
   {
     key: 'bidet',
@@ -221,6 +249,7 @@ const list: FixtureSpec[] = [
     ipc: same(both(1.5, 1.5, 2.0), `${IPC_C} (private; no public row)`),
     upc: same(upcBoth(1.0), UPC_C),
     ...P604(20, 'Bidet, thermostatic mixing valve'),
+    ...A103('1/2', 'Bidet'),
   },
   {
     key: 'bathroom-group-tank',
@@ -231,6 +260,11 @@ const list: FixtureSpec[] = [
     // No UPC group row was read: sum of its fixtures, WC 2.5 + lavatory 1.0 + bathtub 4.0 (X).
     upc: same(both(6.25, 3.75, 7.5), 'sum of UPC Table A 103.1 rows [S13] (X)'),
     ...P604(20, 'Water closet, tank, close coupled'),
+    // The group's largest fixture minimum (water closet tank, lavatory, bathtub: all 1/2 in, C
+    // [S13]); taking the largest is our rule (X).
+    minNominal: '1/2',
+    minNominalHot: '1/2',
+    minNominalSource: 'largest of its fixtures in UPC 2018 Table A 103.1, 1/2 in, C [S13] (X)',
   },
   {
     key: 'bathroom-group-flush-valve',
@@ -241,6 +275,13 @@ const list: FixtureSpec[] = [
     // Its water closet joins the series; lavatory 1.0 + bathtub 4.0 are added on top (X).
     upc: same(both(3.75, 3.75, 5.0), 'lavatory + bathtub of UPC Table A 103.1 [S13] (X)'),
     ...P604(35, 'Water closet, siphonic, flushometer valve'),
+    // Cold side: the flushometer valve water closet, 1 in; hot side: lavatory and bathtub, 1/2 in
+    // (C [S13]); the per-side split is our rule (X).
+    minNominal: '1',
+    minNominalHot: '1/2',
+    minNominalSource:
+      'UPC 2018 Table A 103.1 "Water closet, 1.6 gpf flushometer valve" 1 in (cold), ' +
+      'lavatory and bathtub 1/2 in (hot), C [S13] (X)',
   },
 ]
 

@@ -64,10 +64,22 @@ export function darcyWeisbachKPa(
   roughnessMm: number,
   tempC: number,
 ): number {
+  const { nu, rho } = waterProperties(tempC)
+  return darcyLossKPa(flowLps, idMm, lengthM, roughnessMm, nu, rho)
+}
+
+/** darcyWeisbachKPa with the water's viscosity (m²/s) and density (kg/m³) already looked up. */
+export function darcyLossKPa(
+  flowLps: number,
+  idMm: number,
+  lengthM: number,
+  roughnessMm: number,
+  nu: number,
+  rho: number,
+): number {
   if (!(flowLps > 0)) return 0
   const d = idMm / 1000
   const v = flowLps / 1000 / ((Math.PI * d * d) / 4)
-  const { nu, rho } = waterProperties(tempC)
   const f = swameeJain((v * d) / nu, roughnessMm / idMm)
   return (f * (lengthM / d) * rho * v * v) / 2 / 1000
 }

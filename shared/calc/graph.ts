@@ -3,6 +3,10 @@
  * the inlet of the node it leaves (for a water heater's hot outlets, the heater's cold inlet), so a
  * fixture's hot supply climbs through its heater onto the cold side. Children are ordered by pipe
  * id, which makes every traversal independent of the order of pipes and nodes in the document.
+ *
+ * Pipes are renumbered into that pre-order: internal pipe index q is its place in the walk, so a
+ * parent always comes before its children, a subtree is the range [q, end[q]) and the whole
+ * calculation reads its arrays front to back (or back to front) instead of jumping around.
  */
 import type { Diagram, NodeKind } from '../document/model.ts'
 
@@ -18,12 +22,17 @@ export const KIND: Record<NodeKind, number> = {
   equipment: 7,
 }
 
-/** Index form of a diagram's graph. */
+/** Index form of a diagram's graph. Pipe indices are pre-order places (see the file comment). */
 export interface CompiledGraph {
   nodeCount: number
   pipeCount: number
   nodeIndex: Map<string, number>
+  /** Pipe id → internal (pre-order) index. */
   pipeIndex: Map<string, number>
+  /** Internal pipe index → index in `doc.pipes`. */
+  pipeDoc: Int32Array
+  /** Index in `doc.pipes` → internal pipe index. */
+  docPipe: Int32Array
   nodeKind: Uint8Array
   /** Index of the supply node, or -1. */
   supply: number
@@ -32,13 +41,9 @@ export interface CompiledGraph {
   from: Int32Array
   to: Int32Array
   hot: Uint8Array
-  /** Parent pipe in the pipe forest, or -1. */
+  /** Parent pipe in the pipe forest (always a smaller index), or -1. */
   parent: Int32Array
-  childStart: Int32Array
-  children: Int32Array
-  /** Pipes in pre-order; `pos[q]` is q's place, `end[q]` one past its subtree. */
-  order: Int32Array
-  pos: Int32Array
+  /** One past the last pipe of q's subtree: the subtree is [q, end[q]). */
   end: Int32Array
   /** 1 when the pipe's forest root leaves the supply. */
   rooted: Uint8Array
@@ -46,104 +51,104 @@ export interface CompiledGraph {
   prvs: Int32Array
   /** Pipe into which a fixture's cold and hot paths merge (lowest common ancestor), or -1. */
   lca: Int32Array
+  /** Pipes leaving node v: outPipes[outStart[v] … outStart[v + 1]). */
+  outStart: Int32Array
+  outPipes: Int32Array
 }
 
 const byId = (ids: string[]) => (a: number, b: number) =>
   ids[a]! < ids[b]! ? -1 : ids[a]! > ids[b]! ? 1 : 0
 
 /** Builds the index arrays; the document must have passed validateDiagram without structural errors. */
-export function compileGraph(
-  doc: Diagram,
-  nodeIndex: Map<string, number>,
-  pipeIndex: Map<string, number>,
-): CompiledGraph {
+export function compileGraph(doc: Diagram, nodeIndex: Map<string, number>): CompiledGraph {
   const nodeCount = doc.nodes.length
   const pipeCount = doc.pipes.length
   const nodeKind = new Uint8Array(nodeCount)
   let supply = -1
-  doc.nodes.forEach((n, i) => {
+  for (let i = 0; i < nodeCount; i++) {
+    const n = doc.nodes[i]!
     nodeKind[i] = KIND[n.kind]
     if (n.kind === 'supply') supply = i
-  })
-  const inCold = new Int32Array(nodeCount).fill(-1)
-  const inHot = new Int32Array(nodeCount).fill(-1)
+  }
+  // First in document indices.
+  const dFrom = new Int32Array(pipeCount)
+  const dHot = new Uint8Array(pipeCount)
+  const dInCold = new Int32Array(nodeCount).fill(-1)
+  const dInHot = new Int32Array(nodeCount).fill(-1)
+  const pipeIds: string[] = new Array<string>(pipeCount)
+  for (let q = 0; q < pipeCount; q++) {
+    const p = doc.pipes[q]!
+    pipeIds[q] = p.id
+    dFrom[q] = nodeIndex.get(p.from)!
+    dHot[q] = p.system === 'hot' ? 1 : 0
+    const to = nodeIndex.get(p.to)!
+    if (dHot[q]) dInHot[to] = q
+    else dInCold[to] = q
+  }
+  const dParent = new Int32Array(pipeCount)
+  for (let q = 0; q < pipeCount; q++) {
+    const v = dFrom[q]!
+    dParent[q] = nodeKind[v] === KIND['water-heater'] || !dHot[q] ? dInCold[v]! : dInHot[v]!
+  }
+  const pipeDoc = preOrder(dParent, pipeIds)
+
+  // Then everything per pipe in pre-order.
+  const docPipe = new Int32Array(pipeCount)
+  for (let q = 0; q < pipeCount; q++) docPipe[pipeDoc[q]!] = q
+  const pipeIndex = new Map<string, number>()
   const from = new Int32Array(pipeCount)
   const to = new Int32Array(pipeCount)
   const hot = new Uint8Array(pipeCount)
-  const pipeIds = doc.pipes.map((p) => p.id)
-  doc.pipes.forEach((p, q) => {
-    from[q] = nodeIndex.get(p.from)!
-    to[q] = nodeIndex.get(p.to)!
-    hot[q] = p.system === 'hot' ? 1 : 0
-    if (hot[q]) inHot[to[q]!] = q
-    else inCold[to[q]!] = q
-  })
   const parent = new Int32Array(pipeCount)
-  for (let q = 0; q < pipeCount; q++) {
-    const v = from[q]!
-    parent[q] = nodeKind[v] === KIND['water-heater'] || !hot[q] ? inCold[v]! : inHot[v]!
-  }
-
-  // Children lists (CSR), each sorted by pipe id.
-  const childStart = new Int32Array(pipeCount + 2)
-  for (let q = 0; q < pipeCount; q++) childStart[parent[q]! + 2]!++
-  for (let i = 2; i < childStart.length; i++) childStart[i]! += childStart[i - 1]!
-  const fill = childStart.slice(0, pipeCount + 1)
-  const flat = new Int32Array(pipeCount)
-  for (let q = 0; q < pipeCount; q++) flat[fill[parent[q]! + 1]!++] = q
-  const cmp = byId(pipeIds)
-  for (let g = 0; g <= pipeCount; g++) {
-    flat.subarray(childStart[g]!, childStart[g + 1]!).sort(cmp)
-  }
-  // Group 0 holds the roots; groups 1..n the children of pipe g-1.
-  const rootsEnd = childStart[1]!
-  const children = flat
-  const kids = childStart.subarray(1)
-
-  const order = new Int32Array(pipeCount)
-  const pos = new Int32Array(pipeCount)
-  const end = new Int32Array(pipeCount)
   const rooted = new Uint8Array(pipeCount)
-  const stack: number[] = []
-  let k = 0
-  for (let r = rootsEnd - 1; r >= 0; r--) stack.push(children[r]!)
-  while (stack.length > 0) {
-    const q = stack.pop()!
-    if (q < 0) {
-      end[~q] = k
-      continue
-    }
-    pos[q] = k
-    order[k++] = q
-    const p = parent[q]!
+  for (let q = 0; q < pipeCount; q++) {
+    const d = pipeDoc[q]!
+    pipeIndex.set(pipeIds[d]!, q)
+    from[q] = dFrom[d]!
+    to[q] = nodeIndex.get(doc.pipes[d]!.to)!
+    hot[q] = dHot[d]!
+    const p = dParent[d]! < 0 ? -1 : docPipe[dParent[d]!]!
+    parent[q] = p
     rooted[q] = p < 0 ? (from[q] === supply ? 1 : 0) : rooted[p]!
-    stack.push(~q)
-    for (let c = kids[q + 1]! - 1; c >= kids[q]!; c--) stack.push(children[c]!)
   }
+  const end = new Int32Array(pipeCount)
+  for (let q = 0; q < pipeCount; q++) end[q] = q + 1
+  for (let q = pipeCount - 1; q >= 0; q--) {
+    const p = parent[q]!
+    if (p >= 0 && end[q]! > end[p]!) end[p] = end[q]!
+  }
+  const inCold = dInCold.map((q) => (q < 0 ? -1 : docPipe[q]!))
+  const inHot = dInHot.map((q) => (q < 0 ? -1 : docPipe[q]!))
 
   const prvList: number[] = []
   const lca = new Int32Array(nodeCount).fill(-1)
   for (let v = 0; v < nodeCount; v++) {
-    if (nodeKind[v] === KIND['pressure-reducing-valve'] && inCold[v]! + inHot[v]! > -2) {
-      const q = Math.max(inCold[v]!, inHot[v]!)
-      if (rooted[q]) prvList.push(v)
-    }
     const qc = inCold[v]!
     const qh = inHot[v]!
+    if (nodeKind[v] === KIND['pressure-reducing-valve'] && qc + qh > -2) {
+      if (rooted[Math.max(qc, qh)]) prvList.push(v)
+    }
     if (nodeKind[v] === KIND.fixture && qc >= 0 && qh >= 0) {
       let x = qc
-      while (x >= 0 && !(pos[x]! <= pos[qh]! && pos[qh]! < end[x]!)) x = parent[x]!
+      while (x >= 0 && !(x <= qh && qh < end[x]!)) x = parent[x]!
       lca[v] = x
     }
   }
-  const inletOf = (v: number) => Math.max(inCold[v]!, inHot[v]!)
-  prvList.sort((a, b) => pos[inletOf(a)]! - pos[inletOf(b)]!)
+  prvList.sort((a, b) => Math.max(inCold[a]!, inHot[a]!) - Math.max(inCold[b]!, inHot[b]!))
+  const outStart = new Int32Array(nodeCount + 1)
+  for (let q = 0; q < pipeCount; q++) outStart[from[q]! + 1]!++
+  for (let v = 0; v < nodeCount; v++) outStart[v + 1]! += outStart[v]!
+  const outFill = outStart.slice(0, nodeCount)
+  const outPipes = new Int32Array(pipeCount)
+  for (let q = 0; q < pipeCount; q++) outPipes[outFill[from[q]!]!++] = q
 
   return {
     nodeCount,
     pipeCount,
     nodeIndex,
     pipeIndex,
+    pipeDoc,
+    docPipe,
     nodeKind,
     supply,
     inCold,
@@ -152,13 +157,37 @@ export function compileGraph(
     to,
     hot,
     parent,
-    childStart: kids,
-    children,
-    order,
-    pos,
     end,
     rooted,
     prvs: Int32Array.from(prvList),
     lca,
+    outStart,
+    outPipes,
   }
+}
+
+/** Document pipe indices in pre-order of the forest, children by pipe id. */
+function preOrder(parent: Int32Array, pipeIds: string[]): Int32Array {
+  const n = parent.length
+  // Children lists (CSR): group 0 holds the roots, group g + 1 the children of pipe g.
+  const start = new Int32Array(n + 2)
+  for (let q = 0; q < n; q++) start[parent[q]! + 2]!++
+  for (let i = 2; i < start.length; i++) start[i]! += start[i - 1]!
+  const fill = start.slice(0, n + 1)
+  const flat = new Int32Array(n)
+  for (let q = 0; q < n; q++) flat[fill[parent[q]! + 1]!++] = q
+  const cmp = byId(pipeIds)
+  for (let g = 0; g <= n; g++) {
+    if (start[g + 1]! - start[g]! > 1) flat.subarray(start[g]!, start[g + 1]!).sort(cmp)
+  }
+  const order = new Int32Array(n)
+  const stack: number[] = []
+  let k = 0
+  for (let r = start[1]! - 1; r >= 0; r--) stack.push(flat[r]!)
+  while (stack.length > 0) {
+    const q = stack.pop()!
+    order[k++] = q
+    for (let c = start[q + 2]! - 1; c >= start[q + 1]!; c--) stack.push(flat[c]!)
+  }
+  return order
 }

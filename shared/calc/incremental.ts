@@ -115,7 +115,7 @@ export function createLiveCalculation(doc: Diagram): LiveCalculation {
   function applyPipe(id: string, patch: LiveEdit & { type: 'pipe.update' }): LiveUpdate {
     const q = engine.g.pipeIndex.get(id)
     if (q === undefined) return reject([issue('unknown-id', `No pipe "${id}".`, [id])])
-    const parsed = pipeSchema.safeParse({ ...engine.doc.pipes[q], ...patch.patch })
+    const parsed = pipeSchema.safeParse({ ...engine.docPipe(q), ...patch.patch })
     if (!parsed.success) {
       const msg = parsed.error.issues.map((x) => `${x.path.join('.')}: ${x.message}`).join('; ')
       return reject([issue('schema', `Pipe ${id}: ${msg}`, [id])])
@@ -124,7 +124,7 @@ export function createLiveCalculation(doc: Diagram): LiveCalculation {
     const local: CalcIssue[] = []
     checkPipe(engine.doc, pipe, (code, message, ids) => local.push(issue(code, message, ids)))
     if (local.length > 0 || engine.hasErrors)
-      return rebuild(replaceAt(engine.doc, 'pipes', q, pipe))
+      return rebuild(replaceAt(engine.doc, 'pipes', engine.g.pipeDoc[q]!, pipe))
     const r = engine.updatePipe(q, pipe)
     return { mode: r.mode, pipes: ids(r.pipes), issues: [] }
   }

@@ -166,3 +166,28 @@ export function sizeIndex(material: Material, nominal: string): number {
   for (let i = 0; i < sizes.length; i++) if (sizes[i]!.nominal === nominal) return i
   return -1
 }
+
+/** A nominal designation in inches: "3/8" → 0.375, "1-1/4" → 1.25, "2" → 2. NaN if unreadable. */
+export function nominalInches(nominal: string): number {
+  const m = /^(?:(\d+)(?:-(\d+)\/(\d+))?|(\d+)\/(\d+))$/.exec(nominal.trim())
+  if (!m) return NaN
+  if (m[4] !== undefined) return Number(m[4]) / Number(m[5])
+  return Number(m[1]) + (m[2] !== undefined ? Number(m[2]) / Number(m[3]) : 0)
+}
+
+/** Index of the smallest size of `material` at least `nominal` (by inches); 0 when none given. */
+export function sizeAtLeast(material: Material, nominal: string | null): number {
+  if (nominal === null) return 0
+  const key = `${material.key}|${nominal}`
+  let i = atLeastCache.get(key)
+  if (i === undefined) {
+    const need = nominalInches(nominal)
+    const sizes = material.sizes
+    i = sizes.findIndex((s) => nominalInches(s.nominal) >= need)
+    if (i < 0) i = sizes.length - 1
+    atLeastCache.set(key, i)
+  }
+  return i
+}
+// Compiling a large diagram asks the same few questions many times.
+const atLeastCache = new Map<string, number>()

@@ -6,7 +6,15 @@
 import { FIXTURES } from './fixtures.ts'
 import type { Engine } from './engine.ts'
 import { KIND } from './graph.ts'
-import type { CalcIssue, DiagramResult, NodeResult, PipeResult } from './types.ts'
+import { nominalInches } from './materials.ts'
+import type {
+  CalcIssue,
+  DiagramResult,
+  FixtureMinimum,
+  NodeResult,
+  PipeResult,
+  SizeBasis,
+} from './types.ts'
 
 const kpa = (v: number) => `${v.toFixed(1)} kPa`
 
@@ -20,7 +28,7 @@ export function inletPressure(e: Engine, q: number): number | null {
 
 /** The result of one pipe. */
 export function pipeResult(e: Engine, q: number): PipeResult {
-  const pipe = e.doc.pipes[q]!
+  const pipe = e.docPipe(q)
   const m = e.material[q]
   const s = e.size[q]!
   const sized = s >= 0 && m !== null
@@ -38,12 +46,35 @@ export function pipeResult(e: Engine, q: number): PipeResult {
     material: m?.key ?? pipe.material ?? e.doc.settings.material,
     nominal: sized ? m.sizes[s]!.nominal : null,
     locked: pipe.nominal !== undefined,
+    sizeBasis: sizeBasis(e, q),
+    fixtureMinimum: fixtureMinimum(e, q),
     insideDiameterMm: sized ? m.sizes[s]!.insideDiameterMm : null,
     velocityMps: sized ? e.velocity[q]! : null,
     equivalentLengthM: e.leq[q]!,
     lossKPa: sized ? e.friction[q]! : null,
     inletPressureKPa: e.known[q] ? inletPressure(e, q) : null,
     outletPressureKPa: e.known[q] ? e.outP[q]! : null,
+  }
+}
+
+function sizeBasis(e: Engine, q: number): SizeBasis {
+  if (e.locked[q]! >= 0) return 'locked'
+  if (e.size[q]! < 0) return 'none'
+  if (e.size[q]! > e.base[q]!) return 'pressure-budget'
+  return e.base[q]! > e.velSize[q]! ? 'fixture-minimum' : 'velocity'
+}
+
+/** The minimum supply size of the catalogue fixture pipe q feeds, or null. */
+export function fixtureMinimum(e: Engine, q: number): FixtureMinimum | null {
+  const node = e.doc.nodes[e.g.to[q]!]!
+  const spec = node.kind === 'fixture' ? FIXTURES[node.fixture] : undefined
+  if (!spec) return null
+  return {
+    nodeId: node.id,
+    fixture: spec.key,
+    label: spec.label,
+    nominal: e.g.hot[q] ? spec.minNominalHot : spec.minNominal,
+    source: spec.minNominalSource,
   }
 }
 
@@ -76,7 +107,10 @@ export function buildResult(e: Engine): DiagramResult {
   const issues: CalcIssue[] = [...e.issues]
   if (e.structuralOk) {
     e.refreshPressures()
-    for (let q = 0; q < e.g.pipeCount; q++) pipes[e.pipeIds[q]!] = pipeResult(e, q)
+    // Document order, so that listings follow the file.
+    const docPipe = e.g.docPipe
+    for (let d = 0; d < docPipe.length; d++)
+      pipes[e.pipeIds[docPipe[d]!]!] = pipeResult(e, docPipe[d]!)
     for (let v = 0; v < e.g.nodeCount; v++) nodes[e.nodeIds[v]!] = nodeResult(e, v)
     designIssues(e, pipes, nodes, issues)
   }
@@ -122,6 +156,15 @@ function designIssues(
         'velocity-exceeded',
         `Pipe ${r.id} (locked ${r.nominal}) runs at ${r.velocityMps!.toFixed(2)} m/s, above ${limit} m/s.`,
         [r.id],
+      )
+    }
+    const min = r.locked ? r.fixtureMinimum : null
+    if (min && nominalInches(r.nominal!) < nominalInches(min.nominal)) {
+      warn(
+        'below-fixture-minimum',
+        `Pipe ${r.id} (locked ${r.nominal}) is smaller than the ${min.nominal} in minimum supply ` +
+          `for ${min.label.toLowerCase()} ${min.nodeId} (${min.source}).`,
+        [r.id, min.nodeId],
       )
     }
     if (e.beyondTable[q]) {

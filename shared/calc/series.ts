@@ -26,3 +26,16 @@ export function seriesLoad(kind: FlushValveKind, count: number): number {
   for (let i = 0; i < listed; i++) sum += steps[i]!
   return sum + (count - listed) * then
 }
+
+/** Running totals of each series for 0 … 63 valves, so the sizing loop reads instead of adds. */
+export const SERIES_TOTALS: Record<FlushValveKind, Float64Array> = {
+  closet: Float64Array.from({ length: 64 }, (_, n) => seriesLoad('closet', n)),
+  urinal: Float64Array.from({ length: 64 }, (_, n) => seriesLoad('urinal', n)),
+}
+
+/** seriesLoad from a SERIES_TOTALS row (same integers, so the same result). */
+export function seriesFromTotals(totals: Float64Array, then: number, count: number): number {
+  if (!(count > 0)) return 0
+  const last = totals.length - 1
+  return count <= last ? totals[count]! : totals[last]! + (count - last) * then
+}

@@ -17,6 +17,24 @@ export interface CalcIssue {
 /** Which Hunter curve turned a load into a flow. */
 export type DemandCurve = 'flush-tank' | 'flush-valve'
 
+/**
+ * Why a pipe has its size: locked by the designer; the smallest within the velocity limit; raised
+ * to the minimum supply size of the fixture it feeds; enlarged by the pressure budget; or none fits.
+ */
+export type SizeBasis = 'locked' | 'velocity' | 'fixture-minimum' | 'pressure-budget' | 'none'
+
+/** The minimum supply size that applies to a pipe feeding a fixture. */
+export interface FixtureMinimum {
+  /** The fixture node fed. */
+  nodeId: string
+  /** Its catalogue key and label. */
+  fixture: string
+  label: string
+  /** Minimum nominal size of the supply ("1/2") and where it comes from. */
+  nominal: string
+  source: string
+}
+
 export interface PipeResult {
   id: string
   system: System
@@ -38,6 +56,13 @@ export interface PipeResult {
   /** Chosen (or locked) nominal size; null when no size of the material fits. */
   nominal: string | null
   locked: boolean
+  /**
+   * Why it has that size. Always set by the engine; optional only so that hand-made results
+   * (editor previews, test builders) written before it existed stay valid.
+   */
+  sizeBasis?: SizeBasis
+  /** The minimum supply size of the fixture the pipe feeds (null: none); set as sizeBasis is. */
+  fixtureMinimum?: FixtureMinimum | null
   insideDiameterMm: number | null
   velocityMps: number | null
   /** Length plus fitting allowance, m. */

@@ -6,6 +6,7 @@
  * hot pipes run to the lavatories, the kitchenette and the service sink. SI units; positions are
  * canvas pixels laid out as a riser diagram (upper level above, i.e. smaller y).
  */
+import { FERNHOLLOW_POSITIONS } from './fernhollow-layout.ts'
 import { diagramSchema, type Diagram, type DiagramInput } from '../document/model.ts'
 
 const GROUND = { levelId: 'ground', y: 470, z: 0 }
@@ -159,4 +160,7 @@ const input: DiagramInput = {
 }
 
 /** The Fernhollow Community Hall demo diagram (parsed, defaults filled in). */
-export const fernhollowHallDiagram: Diagram = diagramSchema.parse(input)
+export const fernhollowHallDiagram: Diagram = diagramSchema.parse({
+  ...input,
+  nodes: input.nodes.map((node) => ({ ...node, position: FERNHOLLOW_POSITIONS[node.id] ?? node.position })),
+})

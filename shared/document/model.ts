@@ -33,7 +33,7 @@ export const fixtureLoadSchema = z.object({
 export type FixtureLoad = z.infer<typeof fixtureLoadSchema>
 
 export const settingsSchema = z.object({
-  loadBasis: loadBasisSchema.default('flush-valve-series'),
+  loadBasis: loadBasisSchema.default('per-fixture'),
   occupancy: occupancySchema.default('public'),
   velocityLimits: z
     .object({ cold: z.number().positive().max(10), hot: z.number().positive().max(10) })

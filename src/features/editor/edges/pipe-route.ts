@@ -30,3 +30,23 @@ export function pipeSides(ends: PipeEnds): { sourcePosition: Position; targetPos
     targetPosition: ends.targetIsPoint ? facingSide(ends.target, ends.source) : ends.targetPosition,
   }
 }
+
+/** Shortest vertical drop that gets its label on the drop rather than at the path's centre. */
+const MIN_DROP_PX = 60
+
+/**
+ * Where a pipe's label sits. Pipes rising into a fixture or device carry their label on that
+ * final vertical run, where neighbouring fixtures are far enough apart for labels not to collide;
+ * a fixture's hot and cold labels are staggered so they don't sit side by side. Other pipes are
+ * labelled at the centre of their path.
+ */
+export function labelAnchor(
+  ends: Pick<PipeEnds, 'source' | 'target' | 'targetIsPoint'>,
+  centre: XYPosition,
+  system: 'cold' | 'hot',
+): XYPosition {
+  const drop = centre.y - ends.target.y
+  if (ends.targetIsPoint || Math.abs(ends.target.y - ends.source.y) < MIN_DROP_PX) return centre
+  const along = system === 'hot' ? 0.7 : 0.35
+  return { x: ends.target.x, y: ends.target.y + drop * along }
+}

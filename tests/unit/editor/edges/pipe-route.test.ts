@@ -1,6 +1,6 @@
 import { describe, expect, test } from 'vitest'
 import { Position } from '@vue-flow/core'
-import { facingSide, pipeSides } from '@/features/editor/edges/pipe-route.ts'
+import { facingSide, labelAnchor, pipeSides } from '@/features/editor/edges/pipe-route.ts'
 
 describe('pipe routing sides', () => {
   test.each([
@@ -34,5 +34,25 @@ describe('pipe routing sides', () => {
       sourcePosition: Position.Right,
       targetPosition: Position.Left,
     })
+  })
+})
+
+describe('pipe label placement', () => {
+  const centre = { x: 100, y: 500 }
+  const ends = { source: { x: 0, y: 560 }, target: { x: 200, y: 430 }, targetIsPoint: false }
+
+  test('a pipe rising into a fixture is labelled on its final vertical run, hot and cold apart', () => {
+    const cold = labelAnchor(ends, centre, 'cold')
+    const hot = labelAnchor(ends, centre, 'hot')
+    expect(cold.x).toBe(200)
+    expect(hot.x).toBe(200)
+    expect(cold.y).toBeGreaterThan(430)
+    expect(cold.y).toBeLessThan(500)
+    expect(Math.abs(hot.y - cold.y)).toBeGreaterThan(20)
+  })
+
+  test('mains between junctions and short drops keep the centre', () => {
+    expect(labelAnchor({ ...ends, targetIsPoint: true }, centre, 'cold')).toEqual(centre)
+    expect(labelAnchor({ ...ends, target: { x: 200, y: 540 } }, centre, 'cold')).toEqual(centre)
   })
 })

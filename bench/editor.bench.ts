@@ -1,0 +1,127 @@
+/**
+ * Editor benchmark (`npm run bench:editor`): opens a generated ~2,000-node riser diagram in
+ * Debian's Chromium through the real app and API, then makes one property edit that changes every
+ * pipe label (the default pipe material). Prints the time to first full render, the time from the
+ * edit to the last label updated, and the frame times measured with requestAnimationFrame.
+ * Needs the private PostgreSQL (started here) and a built client (built here when missing).
+ */
+import { execSync, spawn } from 'node:child_process'
+import { existsSync } from 'node:fs'
+import { chromium, type Page } from '@playwright/test'
+import { editorBenchDiagram } from './editor-diagram.ts'
+
+const PORT = 3211
+const BASE = `http://127.0.0.1:${PORT}`
+const PGPORT = process.env.PGPORT ?? '54329'
+const DATABASE_URL = `postgres://postgres@127.0.0.1:${PGPORT}/tributary_bench`
+const TARGET_NODES = Number(process.env.BENCH_NODES ?? 2000)
+const run = (cmd: string, env: Record<string, string> = {}) =>
+  execSync(cmd, { stdio: 'inherit', env: { ...process.env, ...env } })
+
+function stats(frames: number[]) {
+  const s = [...frames].sort((a, b) => a - b)
+  const q = (p: number) => s[Math.min(s.length - 1, Math.floor(p * s.length))] ?? 0
+  return `${s.length} frames, p50 ${q(0.5).toFixed(1)} ms, p95 ${q(0.95).toFixed(1)} ms, max ${(s[s.length - 1] ?? 0).toFixed(1)} ms`
+}
+
+async function api(path: string, cookie: string, body?: unknown, method = 'POST') {
+  const res = await fetch(`${BASE}/api${path}`, {
+    method,
+    headers: { 'Content-Type': 'application/json', cookie },
+    body: body === undefined ? undefined : JSON.stringify(body),
+  })
+  if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`)
+  return res
+}
+
+async function waitForHealth() {
+  for (let i = 0; i < 100; i++) {
+    if (await fetch(`${BASE}/api/health`).then((r) => r.ok, () => false)) return
+    await new Promise((r) => setTimeout(r, 200))
+  }
+  throw new Error('server did not start')
+}
+
+/** Frame deltas recorded in the page from now on. */
+const startFrames = (page: Page) =>
+  page.evaluate(() => {
+    const w = window as unknown as { __frames: number[] }
+    w.__frames = []
+    let last = performance.now()
+    const tick = (t: number) => {
+      w.__frames.push(t - last)
+      last = t
+      requestAnimationFrame(tick)
+    }
+    requestAnimationFrame(tick)
+  })
+const takeFrames = (page: Page) =>
+  page.evaluate(() => (window as unknown as { __frames: number[] }).__frames.splice(0))
+
+run('bash scripts/pg.sh start')
+run('bash scripts/pg.sh ensure-db tributary_bench', { PGPORT })
+run('node --import tsx scripts/migrate.ts', { DATABASE_URL })
+if (!existsSync('dist/index.html')) run('node_modules/.bin/vite build --logLevel warn')
+
+const server = spawn('node', ['--import', 'tsx', 'server/index.ts'], {
+  env: { ...process.env, PORT: String(PORT), DATABASE_URL, NODE_ENV: 'test', SIGN_IN_LIMIT: '1000' },
+  stdio: 'ignore',
+})
+const browser = await chromium.launch({
+  executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+  args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
+})
+let projectId = ''
+let cookie = ''
+try {
+  await waitForHealth()
+  const email = `bench-${Date.now()}@example.test`
+  const signUp = await api('/auth/sign-up', '', { email, name: 'Bench Runner', password: 'bench-password-1' })
+  cookie = signUp.headers.get('set-cookie')!.split(';')[0]!
+  projectId = (await (await api('/projects', cookie, { name: 'Editor benchmark' })).json()).project.id
+  const doc = editorBenchDiagram(TARGET_NODES)
+  const diagram = (await (await api(`/projects/${projectId}/diagrams`, cookie, { name: 'Bench', document: doc })).json()).diagram
+  console.log(`Diagram: ${doc.nodes.length} nodes, ${doc.pipes.length} pipes`)
+
+  const context = await browser.newContext({ viewport: { width: 1600, height: 1000 } })
+  const [name, value] = cookie.split('=') as [string, string]
+  await context.addCookies([{ name, value, url: BASE }])
+  const page = await context.newPage()
+  await page.goto(`${BASE}/projects`)
+  await startFrames(page)
+
+  const t0 = Date.now()
+  await page.goto(`${BASE}/projects/${projectId}/diagrams/${diagram.id}`)
+  await startFrames(page)
+  await page.waitForFunction(
+    (n) => document.querySelectorAll('[data-testid^="pipe-label-"]').length >= n,
+    doc.pipes.length,
+    { timeout: 120_000, polling: 50 },
+  )
+  const openMs = Date.now() - t0
+  const openFrames = await takeFrames(page)
+  console.log(`Open to all ${doc.pipes.length} pipe labels drawn: ${openMs} ms (${stats(openFrames)})`)
+
+  // One edit that changes every label: the default pipe material.
+  const probe = doc.pipes.find((p) => !p.material && !p.nominal)!.id
+  const before = await page.getByTestId(`pipe-label-${probe}`).innerText()
+  await page.getByTestId('open-settings').click()
+  await startFrames(page)
+  const t1 = Date.now()
+  await page.evaluate(() => void 0)
+  await page.getByTestId('settings-material').click()
+  await page.getByRole('option', { name: /PEX/ }).first().click()
+  await page.waitForFunction(
+    ([id, old]) => document.querySelector(`[data-testid="pipe-label-${id}"]`)?.textContent?.replace(/\s+/g, ' ') !== old?.replace(/\s+/g, ' '),
+    [probe, before] as const,
+    { timeout: 60_000, polling: 'raf' },
+  )
+  const editMs = Date.now() - t1
+  await page.waitForTimeout(500)
+  const editFrames = await takeFrames(page)
+  console.log(`Material edit to labels updated: ${editMs} ms, including opening the select (${stats(editFrames)})`)
+} finally {
+  if (projectId) await api(`/projects/${projectId}`, cookie, undefined, 'DELETE').catch(() => undefined)
+  await browser.close()
+  server.kill('SIGTERM')
+}
