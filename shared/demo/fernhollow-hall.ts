@@ -3,7 +3,8 @@
  * as a regression case. City main → meter → backflow preventer → mechanical-room junction; a
  * washroom core with flush valve batteries on the ground floor and flush-tank washrooms upstairs
  * fed by a cold riser; a kitchenette, a janitor's sink, two hose bibbs and a water heater whose
- * hot pipes run to the lavatories, the kitchenette and the service sink. SI units; positions are
+ * hot pipes run to the lavatories, the kitchenette and the service sink. The mains run as one
+ * chain along each floor (mechanical room → washrooms → riser → service corridor), as drawn. SI units; positions are
  * canvas pixels laid out as a riser diagram (upper level above, i.e. smaller y).
  */
 import { FERNHOLLOW_POSITIONS } from './fernhollow-layout.ts'
@@ -113,6 +114,7 @@ const input: DiagramInput = {
     fixture('hb-south', 'Hose bibb, south wall', 'hose-bibb', GROUND, 1120),
     junction('jh-mech', 'Hot main', GROUND, 380, 150),
     junction('jh-core', 'Hot, washroom core', GROUND, 560, 150),
+    junction('jh-g-women', 'Hot, women ground', GROUND, 640, 150),
     junction('riser-h-base', 'Hot riser, base', GROUND, 790, 150),
     junction('riser-h-top', 'Hot riser, top', UPPER, 790, 150),
     junction('jh-service', 'Hot, service corridor', GROUND, 1000, 150),
@@ -128,11 +130,11 @@ const input: DiagramInput = {
     cold('c-wc-g-men', 'j-g-men', 'wc-g-men', 4),
     cold('c-ur-g-men', 'j-g-men', 'ur-g-men', 3),
     cold('c-lav-g-men', 'j-g-men', 'lav-g-men', 3),
-    cold('c-g-women', 'j-core', 'j-g-women', 4),
+    cold('c-g-women', 'j-g-men', 'j-g-women', 4),
     cold('c-wc-g-women', 'j-g-women', 'wc-g-women', 5),
     cold('c-lav-g-women', 'j-g-women', 'lav-g-women', 3),
     cold('c-df-lobby', 'j-core', 'df-lobby', 5),
-    cold('c-riser-feed', 'j-core', 'riser-c-base', 2),
+    cold('c-riser-feed', 'j-g-women', 'riser-c-base', 3),
     cold('c-riser', 'riser-c-base', 'riser-c-top', 4.2),
     cold('c-u-men', 'riser-c-top', 'j-u-men', 3),
     cold('c-wc-u-men', 'j-u-men', 'wc-u-men', 3),
@@ -140,19 +142,20 @@ const input: DiagramInput = {
     cold('c-u-women', 'riser-c-top', 'j-u-women', 4),
     cold('c-wc-u-women', 'j-u-women', 'wc-u-women', 3),
     cold('c-lav-u-women', 'j-u-women', 'lav-u-women', 2.5),
-    cold('c-service-run', 'j-mech', 'j-service', 10),
+    cold('c-service-run', 'riser-c-base', 'j-service', 6),
     cold('c-kitchen', 'j-service', 'ks-kitchen', 4),
     cold('c-janitor', 'j-service', 'ss-janitor', 3),
     cold('c-hb-south', 'j-service', 'hb-south', 9),
     hot('h-main', 'heater', 'jh-mech', 2),
     hot('h-core', 'jh-mech', 'jh-core', 6),
     hot('h-lav-g-men', 'jh-core', 'lav-g-men', 4),
-    hot('h-lav-g-women', 'jh-core', 'lav-g-women', 5),
-    hot('h-riser-feed', 'jh-core', 'riser-h-base', 2),
+    hot('h-g-women', 'jh-core', 'jh-g-women', 4),
+    hot('h-lav-g-women', 'jh-g-women', 'lav-g-women', 2),
+    hot('h-riser-feed', 'jh-g-women', 'riser-h-base', 3),
     hot('h-riser', 'riser-h-base', 'riser-h-top', 4.2),
     hot('h-lav-u-men', 'riser-h-top', 'lav-u-men', 4),
     hot('h-lav-u-women', 'riser-h-top', 'lav-u-women', 5),
-    hot('h-service-run', 'jh-mech', 'jh-service', 10),
+    hot('h-service-run', 'riser-h-base', 'jh-service', 6),
     hot('h-kitchen', 'jh-service', 'ks-kitchen', 4),
     hot('h-dw-kitchen', 'jh-service', 'dw-kitchen', 4.5),
     hot('h-janitor', 'jh-service', 'ss-janitor', 3),

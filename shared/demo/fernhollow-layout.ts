@@ -24,6 +24,7 @@ export const FERNHOLLOW_POSITIONS: Record<string, { x: number; y: number }> = {
   'wc-g-women': { x: 1620, y: 430 },
   'lav-g-women': { x: 1810, y: 430 },
   'jh-core': { x: 1300, y: 680 },
+  'jh-g-women': { x: 1760, y: 680 },
   // risers
   'riser-c-base': { x: 2080, y: 560 },
   'riser-h-base': { x: 2120, y: 680 },
