@@ -35,6 +35,35 @@ function pipeLength(from: DiagramNode, to: DiagramNode): number {
   return Math.round(Math.max(DEFAULT_PIPE_M, rise + 1) * 10) / 10
 }
 
+/** Spacing of nodes added by palette click (px): fixtures stand above their branch, others follow it. */
+const STEP = { across: 190, up: 140, along: 200 }
+const CLEARANCE = 60
+
+/**
+ * Where a clicked palette item goes: next to the selected node it will be piped from (a fixture
+ * above the branch, beside the fixtures already there; anything else further along), else at
+ * `fallback`; nudged until it does not sit on another node.
+ */
+export function placeNear(
+  doc: Diagram,
+  parent: DiagramNode | undefined,
+  kind: DiagramNode['kind'],
+  fallback: { x: number; y: number },
+): { x: number; y: number } {
+  let p = fallback
+  if (parent?.position) {
+    const siblings = doc.pipes.filter((pipe) => pipe.from === parent.id).length
+    p =
+      kind === 'fixture' || kind === 'equipment'
+        ? { x: parent.position.x + siblings * STEP.across, y: parent.position.y - STEP.up }
+        : { x: parent.position.x + STEP.along, y: parent.position.y + siblings * 60 }
+  }
+  const taken = (q: { x: number; y: number }) =>
+    doc.nodes.some((n) => n.position && Math.abs(n.position.x - q.x) < CLEARANCE && Math.abs(n.position.y - q.y) < CLEARANCE)
+  for (let i = 0; i < 50 && taken(p); i++) p = { x: p.x + 40, y: p.y + 40 }
+  return p
+}
+
 export function useCanvasIntents() {
   const store = useDocumentStore()
   const find = (id: string) => store.doc.nodes.find((n) => n.id === id)
@@ -89,9 +118,10 @@ export function useCanvasIntents() {
    * Adds a node from the palette at `position`. With a single feeding node selected, the new node
    * is piped to it at once (the quickest way to grow a branch).
    */
-  function addNode(item: PaletteItem, position: { x: number; y: number }): IntentOutcome {
-    const node = newNode(store.doc, item, position)
+  function addNode(item: PaletteItem, position: { x: number; y: number }, placed = false): IntentOutcome {
     const parent = store.selectedNodeIds.length === 1 ? find(store.selectedNodeIds[0]!) : undefined
+    const at = placed ? position : placeNear(store.doc, parent, item.kind, position)
+    const node = newNode(store.doc, item, at)
     const ops: Operation[] = [{ type: OPS.nodeAdd, node }]
     let pipeNote = ''
     if (parent && parent.kind !== 'fixture' && parent.kind !== 'equipment' && node.kind !== 'supply') {

@@ -37,3 +37,20 @@ describe('fitting a free layout into level bands', () => {
     expect(placed.get('J3')!.y).toBeLessThan(placed.get('J2')!.y)
   })
 })
+
+describe('placing a clicked palette item', async () => {
+  const { placeNear } = await import('../../../../src/features/editor/composables/useCanvasIntents')
+  const parent = { ...doc.nodes[1]!, position: { x: 400, y: 500 } }
+  const base: Diagram = { ...doc, nodes: [doc.nodes[0]!, parent], pipes: [] }
+
+  it('puts a fixture above its branch and the next one beside it', () => {
+    expect(placeNear(base, parent, 'fixture', { x: 0, y: 0 })).toEqual({ x: 400, y: 360 })
+    const withOne: Diagram = { ...base, pipes: [{ id: 'P1', from: 'J1', to: 'F1', system: 'cold', lengthM: 2 }] }
+    expect(placeNear(withOne, parent, 'fixture', { x: 0, y: 0 })).toEqual({ x: 590, y: 360 })
+  })
+
+  it('puts a junction further along the main, and never on top of another node', () => {
+    expect(placeNear(base, parent, 'junction', { x: 0, y: 0 })).toEqual({ x: 600, y: 500 })
+    expect(placeNear(base, undefined, 'junction', { x: 410, y: 510 })).toEqual({ x: 490, y: 590 })
+  })
+})
