@@ -1,6 +1,9 @@
+import { execFileSync } from 'node:child_process'
 import { readFile } from 'node:fs/promises'
 import { expect, test } from '@playwright/test'
 import { fernhollowHallDiagram } from '../shared/demo/fernhollow-hall'
+import { formatFlow, formatLoad, formatVelocity } from '../shared/units/format'
+import { formatNominal } from '../shared/units/nominal'
 import { EditorPage } from './pages/editor.page'
 import { SignInPage } from './pages/sign-in.page'
 
@@ -28,6 +31,18 @@ test('a designer grows a branch, sees every pipe up to the supply change, undoes
 
   const before = await editor.pipeLabels()
   expect(Object.keys(before)).toHaveLength(fernhollowHallDiagram.pipes.length)
+
+  // Every label shows what the command-line calculation prints for the same document.
+  const cli = JSON.parse(
+    execFileSync('node', ['--import', 'tsx', 'scripts/calc.ts', 'tests/fixtures/diagrams/fernhollow-hall.json', '--json'], {
+      encoding: 'utf8',
+    }),
+  ) as { pipes: { id: string; load: number; flowLps: number; nominal: string; velocityMps: number }[] }
+  expect(cli.pipes).toHaveLength(fernhollowHallDiagram.pipes.length)
+  for (const p of cli.pipes) {
+    const expected = [formatLoad(p.load), formatFlow(p.flowLps, 'si'), formatNominal(p.nominal, 'si'), formatVelocity(p.velocityMps, 'si')]
+    expect(before[p.id], p.id).toBe(expected.join(' · '))
+  }
   await page.screenshot({ path: 'test-results/screens/editor-demo.png' })
 
   // Add a lavatory to the upper men's washroom branch.
