@@ -29,5 +29,13 @@ export function editorBenchDiagram(targetNodes: number): Diagram {
     rowAtDepth.set(depth, row + 1)
     return { ...node, position: { x: depth * 180, y: row * 90 } }
   })
-  return { ...doc, name: `Benchmark riser tree (${nodes.length} nodes)`, nodes }
+  // No locked sizes, so the benchmark's material change resizes every pipe.
+  const pipes = doc.pipes.map(({ nominal: _locked, material: _material, ...pipe }) => pipe)
+  return {
+    ...doc,
+    name: `Benchmark riser tree (${nodes.length} nodes)`,
+    settings: { ...doc.settings, material: 'steel-40' },
+    nodes,
+    pipes,
+  }
 }

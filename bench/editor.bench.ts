@@ -1,8 +1,9 @@
 /**
  * Editor benchmark (`npm run bench:editor`): opens a generated ~2,000-node riser diagram in
- * Debian's Chromium through the real app and API, then makes one property edit that changes every
- * pipe label (the default pipe material). Prints the time to first full render, the time from the
- * edit to the last label updated, and the frame times measured with requestAnimationFrame.
+ * Debian's Chromium through the real app and API, then makes one property edit that resizes every
+ * pipe (the default pipe material). Prints the time until the opening view is drawn, the time from
+ * the edit to the labels on screen updated, and frame times measured with requestAnimationFrame.
+ * Large diagrams draw only what is on screen, so "open" is measured to the first screenful.
  * Needs the private PostgreSQL (started here) and a built client (built here when missing).
  */
 import { execSync, spawn } from 'node:child_process'
@@ -42,21 +43,17 @@ async function waitForHealth() {
   throw new Error('server did not start')
 }
 
+// Scripts run in the page are strings: tsx would wrap functions with a helper the page lacks.
 /** Frame deltas recorded in the page from now on. */
 const startFrames = (page: Page) =>
-  page.evaluate(() => {
-    const w = window as unknown as { __frames: number[] }
-    w.__frames = []
+  page.evaluate(`(() => {
+    window.__frames = []
     let last = performance.now()
-    const tick = (t: number) => {
-      w.__frames.push(t - last)
-      last = t
-      requestAnimationFrame(tick)
-    }
+    const tick = (t) => { window.__frames.push(t - last); last = t; requestAnimationFrame(tick) }
     requestAnimationFrame(tick)
-  })
-const takeFrames = (page: Page) =>
-  page.evaluate(() => (window as unknown as { __frames: number[] }).__frames.splice(0))
+  })()`)
+const takeFrames = (page: Page) => page.evaluate('window.__frames.splice(0)') as Promise<number[]>
+const labelCount = `document.querySelectorAll('[data-testid^="pipe-label-"]').length`
 
 run('bash scripts/pg.sh start')
 run('bash scripts/pg.sh ensure-db tributary_bench', { PGPORT })
@@ -83,7 +80,8 @@ try {
   const diagram = (await (await api(`/projects/${projectId}/diagrams`, cookie, { name: 'Bench', document: doc })).json()).diagram
   console.log(`Diagram: ${doc.nodes.length} nodes, ${doc.pipes.length} pipes`)
 
-  const context = await browser.newContext({ viewport: { width: 1600, height: 1000 } })
+  // Polling a string predicate needs eval, which the app's CSP rightly forbids; the bench bypasses it.
+  const context = await browser.newContext({ viewport: { width: 1600, height: 1000 }, bypassCSP: true })
   const [name, value] = cookie.split('=') as [string, string]
   await context.addCookies([{ name, value, url: BASE }])
   const page = await context.newPage()
@@ -93,33 +91,30 @@ try {
   const t0 = Date.now()
   await page.goto(`${BASE}/projects/${projectId}/diagrams/${diagram.id}`)
   await startFrames(page)
-  await page.waitForFunction(
-    (n) => document.querySelectorAll('[data-testid^="pipe-label-"]').length >= n,
-    doc.pipes.length,
-    { timeout: 120_000, polling: 50 },
-  )
+  const probe = doc.pipes[0]!.id
+  await page.getByTestId(`pipe-label-${probe}`).waitFor({ timeout: 120_000 })
+  await page.evaluate('new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(r)))')
   const openMs = Date.now() - t0
   const openFrames = await takeFrames(page)
-  console.log(`Open to all ${doc.pipes.length} pipe labels drawn: ${openMs} ms (${stats(openFrames)})`)
+  const drawn = await page.evaluate(labelCount)
+  console.log(`Open to the first screen drawn (${drawn} of ${doc.pipes.length} pipe labels on screen): ${openMs} ms (${stats(openFrames)})`)
 
-  // One edit that changes every label: the default pipe material.
-  const probe = doc.pipes.find((p) => !p.material && !p.nominal)!.id
+  // One edit that resizes every pipe: the default material, steel → copper.
   const before = await page.getByTestId(`pipe-label-${probe}`).innerText()
   await page.getByTestId('open-settings').click()
   await startFrames(page)
   const t1 = Date.now()
-  await page.evaluate(() => void 0)
   await page.getByTestId('settings-material').click()
-  await page.getByRole('option', { name: /PEX/ }).first().click()
-  await page.waitForFunction(
-    ([id, old]) => document.querySelector(`[data-testid="pipe-label-${id}"]`)?.textContent?.replace(/\s+/g, ' ') !== old?.replace(/\s+/g, ' '),
-    [probe, before] as const,
-    { timeout: 60_000, polling: 'raf' },
-  )
+  await page.locator('.n-base-select-option', { hasText: 'Type L' }).first().click()
+  const label = `document.querySelector('[data-testid="pipe-label-${probe}"]').innerText`
+  await page.waitForFunction(`${label} !== ${JSON.stringify(before)}`, undefined, {
+    timeout: 60_000,
+    polling: 'raf',
+  })
   const editMs = Date.now() - t1
   await page.waitForTimeout(500)
   const editFrames = await takeFrames(page)
-  console.log(`Material edit to labels updated: ${editMs} ms, including opening the select (${stats(editFrames)})`)
+  console.log(`Material edit to labels updated: ${editMs} ms, including choosing in the select (${stats(editFrames)})`)
 } finally {
   if (projectId) await api(`/projects/${projectId}`, cookie, undefined, 'DELETE').catch(() => undefined)
   await browser.close()
