@@ -3,7 +3,7 @@
  * Chromium with the CPU profiler on and prints where the time went (self and inclusive), plus
  * `T ...` timing lines the page logs. Needs a built client, PostgreSQL and a migrated bench DB.
  */
-import { execSync, spawn } from 'node:child_process'
+import { spawn } from 'node:child_process'
 import { chromium } from '@playwright/test'
 import { editorBenchDiagram } from './editor-diagram.ts'
 const PORT = 3212, BASE = `http://127.0.0.1:${PORT}`
