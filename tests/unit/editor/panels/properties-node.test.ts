@@ -1,3 +1,4 @@
+import { describeSource } from '../../../../shared/calc/sources'
 import { afterEach, beforeEach, describe, expect, test } from 'vitest'
 import type { VueWrapper } from '@vue/test-utils'
 import { FIXTURES } from '@shared/calc/fixtures'
@@ -114,7 +115,7 @@ describe('fixture node', () => {
     const { public: listed, source } = FIXTURES.lavatory!.ipc
     const catalogue = w.find('[data-testid="prop-catalogue-load"]').text()
     expect(catalogue).toContain('public')
-    expect(catalogue).toContain(source)
+    expect(catalogue).toContain(describeSource(source))
     expect(catalogue).toContain(
       `cold ${listed.cold} FU, hot ${listed.hot} FU, total ${listed.total} FU`,
     )
@@ -136,7 +137,7 @@ describe('fixture node', () => {
     await choose(w, 'prop-occupancy', 'private')
     const catalogue = w.find('[data-testid="prop-catalogue-load"]').text()
     expect(catalogue).toContain('private')
-    expect(catalogue).toContain(FIXTURES.lavatory!.ipc.source)
+    expect(catalogue).toContain(describeSource(FIXTURES.lavatory!.ipc.source))
   })
 
   test('occupancy inherits from the settings until set, and can go back', async () => {

@@ -9,6 +9,7 @@ import type { PipeResult } from '@shared/calc/types'
 import { formatFlow } from '@shared/units/format'
 import type { UnitSystem } from '@shared/units/system'
 import { fu, line, type InspectorLine } from './inspector-types'
+import { describeSource } from '@shared/calc/sources'
 
 // One decimal, as the table prints its rows.
 const gpm = (v: number) => `${v.toFixed(1)} gpm`
@@ -65,7 +66,7 @@ export function demandLines(x: PipeExplanation, units: UnitSystem): InspectorLin
   const p = x.pipe
   const table = DEMAND_TABLES[p.demandTable]
   const lines: InspectorLine[] = [line(`Table: ${x.demandTable.label}.`), line(curveLine(p))]
-  lines.push(line(`Source: ${x.demandTable.source}.`, 'note'))
+  lines.push(line(`Source: ${describeSource(x.demandTable.source)}.`, 'note'))
   if (table) lines.push(line(readingText(table.columns[p.curve], p.load, units)))
   lines.push(line(`Probable flow from the fixtures: ${formatFlow(p.fixtureFlowLps, units)}.`))
   if (x.equipment.length > 0) {

@@ -7,6 +7,7 @@ import { FIXTURES } from '@shared/calc/fixtures'
 import { FLUSH_VALVE_SERIES } from '@shared/calc/series'
 import type { LoadBasis } from '@shared/document/model'
 import { fu, line, type InspectorLine } from './inspector-types'
+import { describeSource } from '@shared/calc/sources'
 
 const VIA: Record<ServedFixture['via'], string> = {
   cold: 'cold supply only',
@@ -84,7 +85,7 @@ export function loadLines(x: PipeExplanation, basis: LoadBasis): InspectorLine[]
   )
   for (const g of groups) {
     lines.push(line(groupLine(g)))
-    lines.push(line(`Source: ${g.source}`, 'note'))
+    lines.push(line(`Source: ${describeSource(g.source)}`, 'note'))
   }
   for (const s of x.series) {
     const rule = FLUSH_VALVE_SERIES[s.kind]

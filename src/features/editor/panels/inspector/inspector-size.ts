@@ -20,6 +20,7 @@ import {
 import { formatNominal } from '@shared/units/nominal'
 import type { UnitSystem } from '@shared/units/system'
 import { line, type InspectorLine } from './inspector-types'
+import { describeSource } from '@shared/calc/sources'
 
 /** Smallest size of the pipe's material whose bore keeps the flow within the velocity limit. */
 function velocitySize(p: PipeResult, limitMps: number) {
@@ -60,7 +61,7 @@ export function sizingReason(p: PipeResult, settings: Settings, units: UnitSyste
       return line(`${size} is locked by the designer; the calculation does not resize it.`)
     case 'fixture-minimum': {
       const m = p.fixtureMinimum
-      const what = m ? ` for ${m.label} ${m.nodeId} (${m.source})` : ' of the fixture it feeds'
+      const what = m ? ` for ${m.label} ${m.nodeId} (${describeSource(m.source)})` : ' of the fixture it feeds'
       return line(
         `${size} is the minimum supply size${what}; a smaller size would already keep the velocity within ${limit}.`,
       )

@@ -1,6 +1,7 @@
 /** What the catalogue says about a fixture node under the diagram's settings. */
 import { FIXTURES, catalogueLoad, type LoadValues } from '@shared/calc/fixtures'
 import type { NodeOfKind, Occupancy, Settings } from '@shared/document/model'
+import { describeSource } from '@shared/calc/sources'
 
 export interface CatalogueFacts {
   occupancy: Occupancy
@@ -35,9 +36,9 @@ export function catalogueFacts(fixture: NodeOfKind<'fixture'>, settings: Setting
   return {
     occupancy,
     load: catalogueLoad(spec, column, occupancy),
-    loadSource: spec[column].source,
+    loadSource: describeSource(spec[column].source),
     minPressureKPa: spec.minPressureKPa,
-    minPressureSource: spec.minPressureSource,
+    minPressureSource: describeSource(spec.minPressureSource),
     requiredKPa: Math.max(settings.minPressureKPa, spec.minPressureKPa ?? 0),
   }
 }
