@@ -10,7 +10,18 @@ import type { Env } from './config/env.ts'
 import type { Db } from './db/knex.ts'
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts'
 import { diagramsRouter } from './modules/diagrams/diagrams.router.ts'
+import { createOpFeed, type OpFeed } from './modules/diagrams/operations.feed.ts'
 import { projectsRouter } from './modules/projects/projects.router.ts'
+import { reportsRouter } from './modules/reports/reports.router.ts'
+import { passwordResetRouter } from './auth/password-reset.router.ts'
+import { mailboxRouter } from './mail/mailbox.router.ts'
+import { appOrigin, createMailer } from './mail/mailer.ts'
+import { accountRouter } from './modules/account/account.router.ts'
+import { activityRouter } from './modules/audit/activity.router.ts'
+import { invitationsRouter } from './modules/invitations/invitations.router.ts'
+import { projectInvitationsRouter } from './modules/invitations/project-invitations.router.ts'
+import { membersRouter } from './modules/members/members.router.ts'
+import { organisationsRouter } from './modules/organisations/organisations.router.ts'
 
 const distDir = fileURLToPath(new URL('../dist', import.meta.url))
 
@@ -18,6 +29,8 @@ export interface AppParts {
   app: Express
   /** express-session + passport, for socket.io to share the HTTP session. */
   sessionHandlers: RequestHandler[]
+  /** Ops committed over HTTP (save, restore), for the realtime layer to broadcast. */
+  opFeed: OpFeed
 }
 
 /** Builds the Express app without listening; index.ts and the tests own the HTTP server. */
@@ -29,6 +42,7 @@ export function createApp(env: Env, db: Db, pool: pg.Pool): AppParts {
   app.use(express.json({ limit: '5mb' }))
 
   const passport = createPassport(db)
+  const opFeed = createOpFeed()
   const sessionHandlers: RequestHandler[] = [
     sessionMiddleware(pool, env.SESSION_SECRET, env.NODE_ENV === 'production' && !!env.APP_ORIGIN?.startsWith('https')),
     passport.session(),
@@ -43,8 +57,19 @@ export function createApp(env: Env, db: Db, pool: pg.Pool): AppParts {
       res.status(503).json({ ok: false })
     }
   })
+  const mailer = createMailer(env)
+  const origin = appOrigin(env)
+  app.use('/api/auth/password-reset', passwordResetRouter(db, mailer, origin, env.SIGN_IN_LIMIT))
   app.use('/api/auth', authRouter(db, passport, env.SIGN_IN_LIMIT))
-  app.use('/api/projects/:projectId/diagrams', diagramsRouter(db))
+  app.use('/api/account', accountRouter(db))
+  app.use('/api/organisations', organisationsRouter(db))
+  app.use('/api/invitations', invitationsRouter(db))
+  app.use('/api/dev/mail', mailboxRouter(db, env.NODE_ENV === 'production'))
+  app.use('/api/projects/:projectId/members', membersRouter(db))
+  app.use('/api/projects/:projectId/invitations', projectInvitationsRouter(db, mailer, origin))
+  app.use('/api/projects/:projectId/activity', activityRouter(db))
+  app.use('/api/projects/:projectId/diagrams', diagramsRouter(db, opFeed))
+  app.use('/api/projects/:projectId/diagrams', reportsRouter(db))
   app.use('/api/projects', projectsRouter(db))
   app.use('/api', apiNotFound)
 
@@ -53,5 +78,5 @@ export function createApp(env: Env, db: Db, pool: pg.Pool): AppParts {
     app.get('/{*splat}', (_req, res) => res.sendFile('index.html', { root: distDir, maxAge: 0 }))
   }
   app.use(errorHandler)
-  return { app, sessionHandlers }
+  return { app, sessionHandlers, opFeed }
 }

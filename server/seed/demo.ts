@@ -1,10 +1,14 @@
 /**
  * The demo scenario (our own invention): a design firm working on Fernhollow Community Hall, a
- * fictional two-storey hall. Three people with the three working roles.
+ * fictional two-storey hall. Three people with the three working roles; Avery is the firm's admin.
  */
 import { fernhollowHallDiagram } from '../../shared/demo/fernhollow-hall.ts'
 import type { Db } from '../db/knex.ts'
 import { insertDiagramRow } from '../modules/diagrams/diagrams.repo.ts'
+import {
+  addOrganisationMember,
+  insertOrganisation,
+} from '../modules/organisations/organisations.repo.ts'
 import { addMember, insertProject } from '../modules/projects/projects.repo.ts'
 import { insertUser } from '../modules/users/users.repo.ts'
 import { hashPassword, pickColor } from '../modules/users/users.service.ts'
@@ -23,6 +27,9 @@ export const DEMO_PROJECT = {
     'Domestic cold and hot water for a two-storey community hall: washrooms with flush valve ' +
     'batteries on both floors, a kitchenette, a janitor closet and exterior hose bibbs.',
 }
+
+/** The fictional design firm the three demo accounts work for. */
+export const DEMO_ORGANISATION = 'Brackwater Building Services'
 
 export const DEMO_DIAGRAM_NAME = 'Domestic water'
 
@@ -47,7 +54,16 @@ export async function seedDemo(db: Db): Promise<string> {
       users.push({ ...account, id: user.id })
     }
     const owner = users[0]!
-    const project = await insertProject(trx, { ...DEMO_PROJECT, units: 'us', created_by: owner.id })
+    const firm = await insertOrganisation(trx, { name: DEMO_ORGANISATION, created_by: owner.id })
+    for (const user of users) {
+      await addOrganisationMember(trx, firm.id, user.id, user.id === owner.id ? 'admin' : 'member')
+    }
+    const project = await insertProject(trx, {
+      ...DEMO_PROJECT,
+      units: 'us',
+      organisation_id: firm.id,
+      created_by: owner.id,
+    })
     for (const user of users) await addMember(trx, project.id, user.id, user.role)
     await insertDiagramRow(trx, {
       project_id: project.id,

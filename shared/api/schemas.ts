@@ -44,16 +44,23 @@ export const projectSchema = z.object({
   createdAt: z.string(),
   updatedAt: z.string(),
   diagramCount: z.number().int().nonnegative(),
+  /** The organisation (design firm) the project belongs to. */
+  organisationId: z.string(),
+  organisationName: z.string(),
 })
 export type Project = z.infer<typeof projectSchema>
 export const projectListSchema = z.object({ projects: z.array(projectSchema) })
 
-export const createProjectBodySchema = z.object({
+const projectFieldsSchema = z.object({
   name: z.string().trim().min(1, 'is required').max(120, 'must be at most 120 characters'),
   description: z.string().max(2000).default(''),
   units: unitSystemSchema.default('si'),
 })
-export const updateProjectBodySchema = createProjectBodySchema
+export const createProjectBodySchema = projectFieldsSchema.extend({
+  /** The organisation to create it in; the user's first organisation when absent. */
+  organisationId: z.uuid('must be an organisation id').optional(),
+})
+export const updateProjectBodySchema = projectFieldsSchema
   .partial()
   .refine((b) => Object.keys(b).length > 0, 'nothing to change')
 

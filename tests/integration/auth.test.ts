@@ -57,15 +57,19 @@ describe('sign-up, sign-in and sign-out against PostgreSQL', () => {
     const first = startTestApp()
     const agent = supertest.agent(first.app)
     const user = await signUp(agent)
-    const cookie = (await agent.post('/api/auth/sign-in').send({ email: user.email, password: PASSWORD }))
-      .headers['set-cookie']
+    const cookie = (
+      await agent.post('/api/auth/sign-in').send({ email: user.email, password: PASSWORD })
+    ).headers['set-cookie']
     await first.close()
 
     const second = startTestApp()
     try {
       const me = await supertest(second.app).get('/api/auth/me').set('Cookie', cookie!).expect(200)
       expect(me.body.user.id).toBe(user.id)
-      const row = await second.db('sessions').whereRaw(`sess::jsonb -> 'passport' ->> 'user' = ?`, [user.id]).first()
+      const row = await second
+        .db('sessions')
+        .whereRaw(`sess::jsonb -> 'passport' ->> 'user' = ?`, [user.id])
+        .first()
       expect(row).toBeTruthy()
     } finally {
       await second.close()
@@ -77,9 +81,14 @@ describe('sign-up, sign-in and sign-out against PostgreSQL', () => {
     try {
       const email = uniqueEmail()
       for (let i = 0; i < 3; i++) {
-        await supertest(limited.app).post('/api/auth/sign-in').send({ email, password: 'x' }).expect(401)
+        await supertest(limited.app)
+          .post('/api/auth/sign-in')
+          .send({ email, password: 'x' })
+          .expect(401)
       }
-      const res = await supertest(limited.app).post('/api/auth/sign-in').send({ email, password: 'x' })
+      const res = await supertest(limited.app)
+        .post('/api/auth/sign-in')
+        .send({ email, password: 'x' })
       expect(res.status).toBe(429)
       expect(res.body.error.code).toBe('too_many_attempts')
     } finally {

@@ -42,7 +42,10 @@ describe('diagrams are stored in PostgreSQL with a revision', () => {
     expect(list.body.diagrams[0]).toMatchObject({ id, updatedBy: { name: 'Edie Editor' } })
 
     const doc = withJunction('Domestic water')
-    const saved = await editor.put(`${base()}/${id}/document`).send({ baseRevision: 0, document: doc }).expect(200)
+    const saved = await editor
+      .put(`${base()}/${id}/document`)
+      .send({ baseRevision: 0, document: doc })
+      .expect(200)
     expect(saved.body.revision).toBe(1)
     const read = await viewer.get(`${base()}/${id}`).expect(200)
     expect(read.body.diagram.revision).toBe(1)
@@ -50,7 +53,10 @@ describe('diagrams are stored in PostgreSQL with a revision', () => {
       { id: 'P1', from: 'S1', to: 'J1', system: 'cold', lengthM: 12 },
     ])
 
-    const stale = await editor.put(`${base()}/${id}/document`).send({ baseRevision: 0, document: doc }).expect(409)
+    const stale = await editor
+      .put(`${base()}/${id}/document`)
+      .send({ baseRevision: 0, document: doc })
+      .expect(409)
     expect(stale.body.error.message).toMatch(/revision 1/)
   })
 
@@ -58,7 +64,10 @@ describe('diagrams are stored in PostgreSQL with a revision', () => {
     const id = (await editor.post(base()).send({ name: 'Bad input' }).expect(201)).body.diagram.id
     const bad = withJunction('x')
     ;(bad.nodes[0] as { pressureKPa: unknown }).pressureKPa = 'lots'
-    const res = await editor.put(`${base()}/${id}/document`).send({ baseRevision: 0, document: bad }).expect(400)
+    const res = await editor
+      .put(`${base()}/${id}/document`)
+      .send({ baseRevision: 0, document: bad })
+      .expect(400)
     expect(res.body.error.fields[0].path).toBe('document.nodes.0.pressureKPa')
     const read = await editor.get(`${base()}/${id}`).expect(200)
     expect(read.body.diagram.revision).toBe(0)
@@ -66,8 +75,14 @@ describe('diagrams are stored in PostgreSQL with a revision', () => {
 
   it('renames, duplicates and deletes', async () => {
     const id = (await editor.post(base()).send({ name: 'Hot water' }).expect(201)).body.diagram.id
-    await editor.put(`${base()}/${id}/document`).send({ baseRevision: 0, document: withJunction('Hot water') }).expect(200)
-    const renamed = await editor.patch(`${base()}/${id}`).send({ name: 'Hot water, level 2' }).expect(200)
+    await editor
+      .put(`${base()}/${id}/document`)
+      .send({ baseRevision: 0, document: withJunction('Hot water') })
+      .expect(200)
+    const renamed = await editor
+      .patch(`${base()}/${id}`)
+      .send({ name: 'Hot water, level 2' })
+      .expect(200)
     expect(renamed.body.diagram.document.name).toBe('Hot water, level 2')
     const copy = await editor.post(`${base()}/${id}/duplicate`).expect(201)
     expect(copy.body.diagram.name).toBe('Hot water, level 2 (copy)')
@@ -81,7 +96,10 @@ describe('diagrams are stored in PostgreSQL with a revision', () => {
     const id = (await editor.post(base()).send({ name: 'Read only' }).expect(201)).body.diagram.id
     await viewer.get(`${base()}/${id}`).expect(200)
     await viewer.post(base()).send({ name: 'Mine' }).expect(403)
-    await viewer.put(`${base()}/${id}/document`).send({ baseRevision: 0, document: withJunction('x') }).expect(403)
+    await viewer
+      .put(`${base()}/${id}/document`)
+      .send({ baseRevision: 0, document: withJunction('x') })
+      .expect(403)
     await viewer.patch(`${base()}/${id}`).send({ name: 'Renamed' }).expect(403)
     await viewer.delete(`${base()}/${id}`).expect(403)
     await editor.get(`${base()}/not-a-uuid`).expect(404)

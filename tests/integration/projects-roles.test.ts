@@ -28,7 +28,12 @@ describe('project roles are enforced on the server', () => {
   it('makes the creator the owner and lists the project with the role', async () => {
     const res = await owner.get('/api/projects').expect(200)
     expect(res.body.projects).toEqual([
-      expect.objectContaining({ id: projectId, name: 'Lakeside Clinic', role: 'owner', units: 'si' }),
+      expect.objectContaining({
+        id: projectId,
+        name: 'Lakeside Clinic',
+        role: 'owner',
+        units: 'si',
+      }),
     ])
   })
 
@@ -65,7 +70,10 @@ describe('project roles are enforced on the server', () => {
   })
 
   it('answers a malformed project body with 400 naming the field', async () => {
-    const res = await owner.patch(`/api/projects/${projectId}`).send({ units: 'imperial' }).expect(400)
+    const res = await owner
+      .patch(`/api/projects/${projectId}`)
+      .send({ units: 'imperial' })
+      .expect(400)
     expect(res.body.error.fields[0].path).toBe('units')
     await owner.post('/api/projects').send({ name: '   ' }).expect(400)
   })

@@ -10,11 +10,13 @@ import { requireProjectAction } from '../../middleware/require-project-role.ts'
 import { requireUser, userId } from '../../middleware/require-user.ts'
 import { validateBody } from '../../middleware/validate.ts'
 import * as diagrams from './diagrams.service.ts'
+import { historyRouter } from './history.router.ts'
+import { createOpFeed, type OpFeed } from './operations.feed.ts'
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
 
 /** Mounted at /api/projects/:projectId/diagrams. */
-export function diagramsRouter(db: Db): Router {
+export function diagramsRouter(db: Db, feed: OpFeed = createOpFeed()): Router {
   const router = Router({ mergeParams: true })
   router.use(requireUser)
   const read = requireProjectAction(db, 'project.read')
@@ -32,7 +34,9 @@ export function diagramsRouter(db: Db): Router {
 
   router.post('/', edit, validateBody(createDiagramBodySchema), async (req, res) => {
     const { projectId } = ids(req.params)
-    res.status(201).json({ diagram: await diagrams.createDiagram(db, projectId, userId(req), req.body) })
+    res
+      .status(201)
+      .json({ diagram: await diagrams.createDiagram(db, projectId, userId(req), req.body) })
   })
 
   router.get('/:diagramId', read, async (req, res) => {
@@ -40,10 +44,16 @@ export function diagramsRouter(db: Db): Router {
     res.json({ diagram: await diagrams.getDiagram(db, projectId, diagramId) })
   })
 
-  router.put('/:diagramId/document', edit, validateBody(saveDiagramBodySchema), async (req, res) => {
-    const { projectId, diagramId } = ids(req.params)
-    res.json(await diagrams.saveDocument(db, projectId, diagramId, userId(req), req.body))
-  })
+  router.put(
+    '/:diagramId/document',
+    edit,
+    validateBody(saveDiagramBodySchema),
+    async (req, res) => {
+      const { projectId, diagramId } = ids(req.params)
+      const author = { id: userId(req), name: req.user!.name }
+      res.json(await diagrams.saveDocument(db, projectId, diagramId, author, req.body, feed))
+    },
+  )
 
   router.patch('/:diagramId', edit, validateBody(renameDiagramBodySchema), async (req, res) => {
     const { projectId, diagramId } = ids(req.params)
@@ -54,8 +64,12 @@ export function diagramsRouter(db: Db): Router {
 
   router.post('/:diagramId/duplicate', edit, async (req, res) => {
     const { projectId, diagramId } = ids(req.params)
-    res.status(201).json({ diagram: await diagrams.duplicateDiagram(db, projectId, diagramId, userId(req)) })
+    res
+      .status(201)
+      .json({ diagram: await diagrams.duplicateDiagram(db, projectId, diagramId, userId(req)) })
   })
+
+  router.use(historyRouter(db, feed))
 
   router.delete('/:diagramId', edit, async (req, res) => {
     const { projectId, diagramId } = ids(req.params)

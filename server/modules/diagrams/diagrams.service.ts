@@ -1,5 +1,11 @@
-import type { DiagramRecord, DiagramSummary, SaveDiagramBody } from '../../../shared/api/diagrams.ts'
+import { randomUUID } from 'node:crypto'
+import type {
+  DiagramRecord,
+  DiagramSummary,
+  SaveDiagramBody,
+} from '../../../shared/api/diagrams.ts'
 import { emptyDiagram, type Diagram } from '../../../shared/document/model.ts'
+import { diffDocuments } from '../../../shared/sync/diff.ts'
 import type { Db } from '../../db/knex.ts'
 import { conflict, notFound } from '../../errors.ts'
 import {
@@ -8,10 +14,11 @@ import {
   insertDiagramRow,
   listDiagramRows,
   renameDiagramRow,
-  saveDocumentIfRevision,
   touchProject,
   type DiagramRow,
 } from './diagrams.repo.ts'
+import type { OpFeed } from './operations.feed.ts'
+import { commitOps } from './operations.service.ts'
 
 function toSummary(row: DiagramRow): DiagramSummary {
   return {
@@ -76,27 +83,41 @@ export async function duplicateDiagram(
 
 /**
  * Stores a whole document edited on `baseRevision`. A save made on an older revision is refused
- * (409) rather than silently overwriting someone else's work.
+ * (409) rather than silently overwriting someone else's work. The save goes through the op log
+ * like a live edit: its op is the difference from the stored document (source `save`), so the
+ * revision, the history and every connected replica stay coherent; `feed` broadcasts it.
  */
 export async function saveDocument(
   db: Db,
   projectId: string,
   id: string,
-  userId: string,
+  author: { id: string; name: string },
   body: SaveDiagramBody,
+  feed?: OpFeed,
 ): Promise<{ revision: number; updatedAt: string }> {
   const current = await findDiagramRow(db, projectId, id)
   if (!current) throw notFound('No such diagram in this project')
-  const document = { ...body.document, name: current.name }
-  const saved = await saveDocumentIfRevision(db, id, body.baseRevision, document, userId)
-  if (!saved) {
-    throw conflict(
-      `baseRevision: the diagram is at revision ${current.revision}, not ${body.baseRevision}; ` +
-        'reload to get the latest version',
-    )
+  const [outcome] = await commitOps(db, id, [
+    {
+      clientOpId: randomUUID(),
+      author,
+      op: (stored) => diffDocuments(stored, body.document),
+      source: 'save',
+      checkRole: false,
+      checkGraphRules: false,
+      expectRevision: body.baseRevision,
+    },
+  ])
+  if (outcome!.kind === 'reject') {
+    if (outcome!.code === 'not-found') throw notFound('No such diagram in this project')
+    throw conflict(outcome!.reason)
   }
+  if (outcome!.applied) feed?.publish(outcome!.applied)
   await touchProject(db, projectId)
-  return { revision: saved.revision, updatedAt: saved.updated_at.toISOString() }
+  return {
+    revision: outcome!.revision,
+    updatedAt: outcome!.applied?.at ?? new Date().toISOString(),
+  }
 }
 
 export async function renameDiagram(
@@ -112,5 +133,6 @@ export async function renameDiagram(
 }
 
 export async function deleteDiagram(db: Db, projectId: string, id: string): Promise<void> {
-  if (!(await deleteDiagramRow(db, projectId, id))) throw notFound('No such diagram in this project')
+  if (!(await deleteDiagramRow(db, projectId, id)))
+    throw notFound('No such diagram in this project')
 }

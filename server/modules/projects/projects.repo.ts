@@ -6,6 +6,7 @@ export interface ProjectRow {
   name: string
   description: string
   units: 'si' | 'us'
+  organisation_id: string
   created_by: string | null
   created_at: Date
   updated_at: Date
@@ -14,15 +15,18 @@ export interface ProjectRow {
 export interface ProjectWithRole extends ProjectRow {
   role: ProjectRole
   diagram_count: number
+  organisation_name: string
 }
 
 const withRole = (db: Db, userId: string) =>
   db('projects as p')
     .join('project_members as m', 'm.project_id', 'p.id')
+    .join('organisations as o', 'o.id', 'p.organisation_id')
     .where('m.user_id', userId)
     .select<ProjectWithRole[]>(
       'p.*',
       'm.role',
+      'o.name as organisation_name',
       db.raw(
         `(SELECT count(*)::int FROM diagrams d WHERE d.project_id = p.id) AS diagram_count`,
       ),
@@ -43,7 +47,7 @@ export const findMemberRole = async (db: Db, projectId: string, userId: string) 
 
 export async function insertProject(
   db: Db,
-  project: Pick<ProjectRow, 'name' | 'description' | 'units' | 'created_by'>,
+  project: Pick<ProjectRow, 'name' | 'description' | 'units' | 'created_by' | 'organisation_id'>,
 ): Promise<ProjectRow> {
   const [row] = await db<ProjectRow>('projects').insert(project).returning('*')
   return row!

@@ -16,7 +16,7 @@ export function projectsRouter(db: Db): Router {
   })
 
   router.post('/', validateBody(createProjectBodySchema), async (req, res) => {
-    res.status(201).json({ project: await createProject(db, userId(req), req.body) })
+    res.status(201).json({ project: await createProject(db, req.user!, req.body) })
   })
 
   router.get('/:projectId', requireProjectAction(db, 'project.read'), async (req, res) => {

@@ -1,6 +1,9 @@
 import type { Project } from '../../../shared/api/schemas.ts'
 import type { Db } from '../../db/knex.ts'
-import { notFound } from '../../errors.ts'
+import { HttpError, notFound } from '../../errors.ts'
+import { recordAudit } from '../audit/audit.service.ts'
+import { findOrganisationRole } from '../organisations/organisations.repo.ts'
+import { defaultOrganisationId } from '../organisations/organisations.service.ts'
 import {
   addMember,
   findProjectForUser,
@@ -19,6 +22,8 @@ export function toProject(row: ProjectWithRole): Project {
     createdAt: row.created_at.toISOString(),
     updatedAt: row.updated_at.toISOString(),
     diagramCount: row.diagram_count,
+    organisationId: row.organisation_id,
+    organisationName: row.organisation_name,
   }
 }
 
@@ -32,16 +37,39 @@ export async function getProject(db: Db, projectId: string, userId: string): Pro
   return toProject(row)
 }
 
-/** Creates a project with its creator as owner, in one transaction. */
+/**
+ * Creates a project with its creator as owner, in one transaction, in the given organisation
+ * (which the creator must belong to) or the creator's first one.
+ */
 export async function createProject(
   db: Db,
-  userId: string,
-  input: { name: string; description: string; units: 'si' | 'us' },
+  user: { id: string; name: string },
+  { organisationId, ...input }: CreateProjectInput,
 ): Promise<Project> {
   const id = await db.transaction(async (trx) => {
-    const row = await insertProject(trx, { ...input, created_by: userId })
-    await addMember(trx, row.id, userId, 'owner')
+    if (organisationId && !(await findOrganisationRole(trx, organisationId, user.id))) {
+      throw new HttpError(404, 'not_found', 'organisationId: no such organisation', [
+        { path: 'organisationId', message: 'you are not a member of this organisation' },
+      ])
+    }
+    const orgId = organisationId ?? (await defaultOrganisationId(trx, user))
+    const row = await insertProject(trx, { ...input, organisation_id: orgId, created_by: user.id })
+    await addMember(trx, row.id, user.id, 'owner')
+    await recordAudit(trx, {
+      actorId: user.id,
+      projectId: row.id,
+      organisationId: orgId,
+      action: 'project.created',
+      details: { name: row.name },
+    })
     return row.id
   })
-  return getProject(db, id, userId)
+  return getProject(db, id, user.id)
+}
+
+interface CreateProjectInput {
+  name: string
+  description: string
+  units: 'si' | 'us'
+  organisationId?: string
 }

@@ -7,6 +7,8 @@ export interface UserRow {
   password_hash: string
   color: string
   units: 'si' | 'us'
+  notify_mentions: boolean
+  notify_reviews: boolean
   created_at: Date
   updated_at: Date
 }
@@ -23,3 +25,11 @@ export async function insertUser(
   const [row] = await db<UserRow>('users').insert(user).returning('*')
   return row!
 }
+
+export const updateUserRow = (
+  db: Db,
+  id: string,
+  patch: Partial<
+    Pick<UserRow, 'name' | 'color' | 'units' | 'notify_mentions' | 'notify_reviews' | 'password_hash'>
+  >,
+) => db('users').where({ id }).update({ ...patch, updated_at: db.fn.now() })

@@ -2,6 +2,7 @@ import { hash, verify } from '@node-rs/argon2'
 import type { SignUpBody, User } from '../../../shared/api/schemas.ts'
 import type { Db } from '../../db/knex.ts'
 import { conflict } from '../../errors.ts'
+import { createOrganisation, personalName } from '../organisations/organisations.service.ts'
 import { findUserByEmail, insertUser, type UserRow } from './users.repo.ts'
 
 /** Avatar colours for presence; picked from the e-mail so a user keeps theirs. */
@@ -20,15 +21,28 @@ export function toUser(row: UserRow): User {
 // argon2id is @node-rs/argon2's default algorithm.
 export const hashPassword = (password: string) => hash(password)
 
-export async function createUser(db: Db, body: SignUpBody): Promise<UserRow> {
+/**
+ * A new account. Someone signing up on their own gets a personal organisation to hold their
+ * projects; someone joining through an invitation joins the inviting firm instead.
+ */
+export async function createUser(
+  db: Db,
+  body: SignUpBody,
+  { personalOrganisation = true } = {},
+): Promise<UserRow> {
   if (await findUserByEmail(db, body.email)) {
     throw conflict('email: an account with this e-mail address already exists')
   }
-  return insertUser(db, {
-    email: body.email,
-    name: body.name,
-    password_hash: await hashPassword(body.password),
-    color: pickColor(body.email),
+  const passwordHash = await hashPassword(body.password)
+  return db.transaction(async (trx) => {
+    const user = await insertUser(trx, {
+      email: body.email,
+      name: body.name,
+      password_hash: passwordHash,
+      color: pickColor(body.email),
+    })
+    if (personalOrganisation) await createOrganisation(trx, user.id, personalName(user.name))
+    return user
   })
 }
 

@@ -1,0 +1,98 @@
+/**
+ * Presence: who is in a diagram and what each has selected (kept in socket data, in memory
+ * only), and live cursors relayed as volatile messages, never stored.
+ */
+import { can } from '../../shared/auth/roles.ts'
+import {
+  describeMessageError,
+  presenceCursorSchema,
+  presenceUpdateSchema,
+} from '../../shared/protocol/client-messages.ts'
+import { CLIENT_EVENTS, SERVER_EVENTS } from '../../shared/protocol/events.ts'
+import type {
+  PresenceCursorRelay,
+  PresenceMember,
+  PresenceState,
+} from '../../shared/protocol/server-messages.ts'
+import { mergeSelections } from '../../shared/sync/presence.ts'
+import { joinedAccess } from './access.ts'
+import {
+  handle,
+  refuse,
+  roomOf,
+  type RealtimeContext,
+  type SocketData,
+  type SocketState,
+} from './context.ts'
+
+/** Members of a diagram from the sockets in its room (all processes), one per user. */
+export function membersOf(diagramId: string, sockets: readonly { data: SocketData }[]) {
+  const byUser = new Map<string, PresenceMember>()
+  for (const { data } of sockets) {
+    const here = data.presence?.[diagramId]
+    if (!here) continue
+    const seen = byUser.get(data.userId)
+    const selection = seen ? mergeSelections([seen.selection, here.selection]) : here.selection
+    // Several tabs: the strongest role shows (an editor tab beside a read-only one).
+    const role = seen && can(seen.role, 'diagram.edit') ? seen.role : here.role
+    const { userId, name, initials, color } = data
+    byUser.set(userId, { userId, name, initials, color, role, selection })
+  }
+  return [...byUser.values()].sort((a, b) => a.name.localeCompare(b.name))
+}
+
+/** Sends everyone in the room the current member list. */
+export async function broadcastPresence(ctx: RealtimeContext, diagramId: string): Promise<void> {
+  if (ctx.closing) return
+  const room = roomOf(diagramId)
+  let sockets
+  try {
+    sockets = await ctx.io.in(room).fetchSockets()
+  } catch {
+    // Another process did not answer in time: show who this process knows about.
+    sockets = await ctx.io.local.in(room).fetchSockets()
+  }
+  const message: PresenceState = {
+    diagramId,
+    members: membersOf(diagramId, sockets as unknown as { data: SocketData }[]),
+  }
+  ctx.io.to(room).emit(SERVER_EVENTS.presenceState, message)
+}
+
+export function presenceHandlers(ctx: RealtimeContext, state: SocketState): void {
+  const { socket } = state
+
+  handle(ctx, socket, CLIENT_EVENTS.presenceUpdate, async (payload) => {
+    const parsed = presenceUpdateSchema.safeParse(payload)
+    if (!parsed.success) {
+      const error = describeMessageError(parsed.error)
+      return refuse(socket, CLIENT_EVENTS.presenceUpdate, payload, { code: 'invalid', ...error })
+    }
+    const { diagramId, selection } = parsed.data
+    if (!(await joinedAccess(ctx.db, state, diagramId, 0))) {
+      return refuse(socket, CLIENT_EVENTS.presenceUpdate, payload, {
+        code: 'unavailable',
+        reason: 'diagramId: join the diagram first (diagram:join)',
+        field: 'diagramId',
+      })
+    }
+    const here = socket.data.presence[diagramId]
+    if (here) here.selection = selection
+    await broadcastPresence(ctx, diagramId)
+  })
+
+  handle(ctx, socket, CLIENT_EVENTS.presenceCursor, async (payload) => {
+    const parsed = presenceCursorSchema.safeParse(payload)
+    if (!parsed.success) return // volatile: a bad cursor is simply not relayed
+    const { diagramId, x, y } = parsed.data
+    if (!(await joinedAccess(ctx.db, state, diagramId))) return
+    const relay: PresenceCursorRelay = {
+      diagramId,
+      userId: socket.data.userId,
+      color: socket.data.color,
+      x,
+      y,
+    }
+    socket.volatile.to(roomOf(diagramId)).emit(SERVER_EVENTS.presenceCursor, relay)
+  })
+}

@@ -1,0 +1,38 @@
+import { OPS, type Operation } from '../document/operations.ts'
+
+/**
+ * A short plain-language line for an op, for the revision list.
+ * @example
+ * summarizeOperation({ type: 'node.move', id: 'J2', position: { x: 0, y: 0 } }) // 'moved J2'
+ * summarizeOperation({ type: 'batch', ops: [a, b, c] }) // '3 changes'
+ */
+export function summarizeOperation(op: Operation): string {
+  switch (op.type) {
+    case OPS.nodeAdd:
+      return `added ${op.node.id}`
+    case OPS.nodeUpdate:
+      return `changed ${Object.keys(op.patch).join(', ')} of ${op.id}`
+    case OPS.nodeMove:
+      return `moved ${op.id}`
+    case OPS.nodeRemove:
+      return `removed ${op.id}`
+    case OPS.pipeAdd:
+      return `added pipe ${op.pipe.id} (${op.pipe.from} → ${op.pipe.to})`
+    case OPS.pipeUpdate:
+      return `changed ${Object.keys(op.patch).join(', ')} of pipe ${op.id}`
+    case OPS.pipeRemove:
+      return `removed pipe ${op.id}`
+    case OPS.settingsUpdate:
+      return `changed settings: ${Object.keys(op.patch).join(', ')}`
+    case OPS.levelAdd:
+      return `added level ${op.level.name}`
+    case OPS.levelUpdate:
+      return `changed level ${op.id}`
+    case OPS.levelRemove:
+      return `removed level ${op.id}`
+    case OPS.diagramRename:
+      return `renamed the diagram to "${op.name}"`
+    case OPS.batch:
+      return op.ops.length === 1 ? summarizeOperation(op.ops[0]!) : `${op.ops.length} changes`
+  }
+}

@@ -1,0 +1,163 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { addMember } from '../../server/modules/projects/projects.repo.ts'
+import type { DiagramInput } from '../../shared/document/model.ts'
+import { EVENTS } from '../../shared/protocol/events.ts'
+import type {
+  MessageRefused,
+  OpReject,
+  PresenceCursorRelay,
+} from '../../shared/protocol/server-messages.ts'
+import { createDiagramAt, signUpAt, waitUntil, type Session } from './helpers/realtime-http.ts'
+import { startRealtimeServer, type RealtimeTestServer } from './helpers/realtime-server.ts'
+import { openSocket, SyncClient } from './helpers/realtime-sync-client.ts'
+
+const riser: DiagramInput = {
+  format: 'tributary-diagram',
+  version: 1,
+  name: 'Domestic water',
+  nodes: [
+    { id: 'S1', kind: 'supply', label: 'Street main', pressureKPa: 420 },
+    { id: 'J1', kind: 'junction' },
+    { id: 'J2', kind: 'junction' },
+    { id: 'F1', kind: 'fixture', fixture: 'lavatory', label: 'Basin' },
+  ],
+  pipes: [
+    { id: 'P1', from: 'S1', to: 'J1', system: 'cold', lengthM: 6 },
+    { id: 'P2', from: 'J1', to: 'J2', system: 'cold', lengthM: 4 },
+    { id: 'P3', from: 'J2', to: 'F1', system: 'cold', lengthM: 2 },
+  ],
+}
+
+let srv: RealtimeTestServer
+let owner: Session
+let editor: Session
+let reviewer: Session
+let projectId: string
+let diagramId: string
+const clients: SyncClient[] = []
+const client = (session: Session) => {
+  const c = new SyncClient(srv.url, session.cookie, diagramId)
+  clients.push(c)
+  return c
+}
+beforeAll(async () => {
+  srv = await startRealtimeServer({ REALTIME_RATE: '50', REALTIME_BURST: '60' })
+  owner = await signUpAt(srv.url, 'Orla Owner')
+  editor = await signUpAt(srv.url, 'Eli Editor')
+  reviewer = await signUpAt(srv.url, 'Ravi Reviewer')
+  ;({ projectId, diagramId } = await createDiagramAt(srv.url, owner, riser))
+  await addMember(srv.db, projectId, editor.user.id, 'editor')
+  await addMember(srv.db, projectId, reviewer.user.id, 'reviewer')
+})
+afterAll(async () => {
+  for (const c of clients) c.close()
+  await srv.close()
+})
+
+describe('presence', () => {
+  it('lists who is in the diagram with initials and colour, shares selections, relays cursors', async () => {
+    const viewer = await signUpAt(srv.url, 'Vera Viewer')
+    await addMember(srv.db, projectId, viewer.user.id, 'viewer')
+    const a = client(owner)
+    const b = client(viewer)
+    await waitUntil(() => a.live && b.live, 'join')
+    await waitUntil(
+      () => !!a.presence?.members.some((m) => m.userId === viewer.user.id),
+      'presence of both',
+    )
+    const names = a.presence!.members.map((m) => m.name)
+    expect(names).toEqual(expect.arrayContaining(['Orla Owner', 'Vera Viewer']))
+    const orla = a.presence!.members.find((m) => m.userId === owner.user.id)!
+    expect(orla).toMatchObject({
+      initials: 'OO',
+      color: expect.stringMatching(/^#[0-9a-f]{6}$/),
+      role: 'owner',
+    })
+
+    b.socket.emit(EVENTS.presenceUpdate, { diagramId, selection: { nodes: ['J2'], pipes: ['P2'] } })
+    await waitUntil(
+      () =>
+        a.presence!.members.some(
+          (m) => m.userId === viewer.user.id && m.selection.nodes.includes('J2'),
+        ),
+      'selection shared',
+    )
+    const cursors: PresenceCursorRelay[] = []
+    a.socket.on(EVENTS.presenceCursor, (m) => cursors.push(m))
+    b.socket.emit(EVENTS.presenceCursor, { diagramId, x: 120, y: 48 })
+    await waitUntil(() => cursors.length > 0, 'cursor')
+    expect(cursors[0]).toMatchObject({ diagramId, userId: viewer.user.id, x: 120, y: 48 })
+
+    b.close()
+    await waitUntil(
+      () => !a.presence!.members.some((m) => m.userId === viewer.user.id),
+      'leave on disconnect',
+    )
+  })
+})
+
+describe('access and limits', () => {
+  it('refuses a socket without a session and one from another origin', async () => {
+    const errors: string[] = []
+    const anonymous = openSocket(srv.url, null)
+    anonymous.on('connect_error', (e) => errors.push(`anon: ${e.message}`))
+    const foreign = openSocket(srv.url, owner.cookie, { origin: 'http://elsewhere.example.test' })
+    foreign.on('connect_error', (e) => errors.push(`foreign: ${e.message}`))
+    await waitUntil(() => errors.length >= 2, 'two refusals')
+    anonymous.close()
+    foreign.close()
+    expect(errors.find((e) => e.startsWith('anon'))).toMatch(/unauthorized/)
+    expect(errors.find((e) => e.startsWith('foreign'))).toBeTruthy()
+  })
+
+  it('does not let a non-member join, and names the bad field of a malformed message', async () => {
+    const stranger = await signUpAt(srv.url, 'Sam Stranger')
+    const socket = openSocket(srv.url, stranger.cookie)
+    const refusals: MessageRefused[] = []
+    const rejects: OpReject[] = []
+    socket.on(EVENTS.messageRefused, (m) => refusals.push(m))
+    socket.on(EVENTS.opReject, (m) => rejects.push(m))
+    socket.emit(EVENTS.diagramJoin, { diagramId })
+    socket.emit(EVENTS.diagramJoin, { diagramId: 'not-a-uuid' } as never)
+    const clientOpId = crypto.randomUUID()
+    socket.emit(EVENTS.opSubmit, {
+      diagramId,
+      clientOpId,
+      baseRevision: -1,
+      op: { type: 'node.remove', id: 'J1' },
+    })
+    await waitUntil(() => refusals.length === 2 && rejects.length === 1, 'refusals')
+    socket.close()
+    expect(refusals).toContainEqual(
+      expect.objectContaining({ event: 'diagram:join', code: 'not-found' }),
+    )
+    expect(refusals).toContainEqual(
+      expect.objectContaining({ code: 'invalid', field: 'diagramId' }),
+    )
+    expect(rejects[0]).toMatchObject({ clientOpId, code: 'invalid', field: 'baseRevision' })
+  })
+
+  it('refuses a message over the size cap and messages over the per-socket rate', async () => {
+    const a = client(owner)
+    await waitUntil(() => a.live, 'join')
+    const big = 'x'.repeat(srv.env.REALTIME_MAX_BYTES)
+    const clientOpId = crypto.randomUUID()
+    a.socket.emit(EVENTS.opSubmit, {
+      diagramId,
+      clientOpId,
+      baseRevision: a.replica.revision,
+      op: { type: 'diagram.rename', name: big },
+    })
+    await waitUntil(() => a.rejects.length === 1, 'size refusal')
+    expect(a.rejects[0]).toMatchObject({
+      clientOpId,
+      code: 'limit',
+      reason: expect.stringMatching(/too large/),
+    })
+
+    for (let i = 0; i < 100; i++)
+      a.socket.emit(EVENTS.presenceUpdate, { diagramId, selection: { nodes: [], pipes: [] } })
+    await waitUntil(() => a.refusals.some((r) => r.code === 'limit'), 'rate refusal')
+    expect(a.refusals.find((r) => r.code === 'limit')!.reason).toMatch(/too many messages/)
+  })
+})
