@@ -1,5 +1,6 @@
 /**
- * Editor benchmark (`npm run bench:editor`): opens a generated ~2,000-node riser diagram in
+ * Editor benchmark (`npm run bench:editor`): opens generated riser diagrams (~500, ~1,000 and
+ * ~2,000 nodes; env BENCH_NODES, comma-separated, picks others) in
  * Debian's Chromium through the real app and API, then makes one property edit that resizes every
  * pipe (the default pipe material). Prints the time until the opening view is drawn, the time from
  * the edit to the labels on screen updated, and frame times measured with requestAnimationFrame.
@@ -8,14 +9,16 @@
  */
 import { execSync, spawn } from 'node:child_process'
 import { existsSync } from 'node:fs'
-import { chromium, type Page } from '@playwright/test'
+import { loadavg } from 'node:os'
+import { chromium, type BrowserContext, type Page } from '@playwright/test'
 import { editorBenchDiagram } from './editor-diagram.ts'
 
 const PORT = 3211
 const BASE = `http://127.0.0.1:${PORT}`
 const PGPORT = process.env.PGPORT ?? '54329'
-const DATABASE_URL = `postgres://postgres@127.0.0.1:${PGPORT}/tributary_bench`
-const TARGET_NODES = Number(process.env.BENCH_NODES ?? 2000)
+const DATABASE = process.env.BENCH_DATABASE ?? 'tributary_bench'
+const DATABASE_URL = `postgres://postgres@127.0.0.1:${PGPORT}/${DATABASE}`
+const SIZES = (process.env.BENCH_NODES ?? '500,1000,2000').split(',').map(Number)
 const run = (cmd: string, env: Record<string, string> = {}) =>
   execSync(cmd, { stdio: 'inherit', env: { ...process.env, ...env } })
 
@@ -37,7 +40,13 @@ async function api(path: string, cookie: string, body?: unknown, method = 'POST'
 
 async function waitForHealth() {
   for (let i = 0; i < 100; i++) {
-    if (await fetch(`${BASE}/api/health`).then((r) => r.ok, () => false)) return
+    if (
+      await fetch(`${BASE}/api/health`).then(
+        (r) => r.ok,
+        () => false,
+      )
+    )
+      return
     await new Promise((r) => setTimeout(r, 200))
   }
   throw new Error('server did not start')
@@ -55,35 +64,15 @@ const startFrames = (page: Page) =>
 const takeFrames = (page: Page) => page.evaluate('window.__frames.splice(0)') as Promise<number[]>
 const labelCount = `document.querySelectorAll('[data-testid^="pipe-label-"]').length`
 
-run('bash scripts/pg.sh start')
-run('bash scripts/pg.sh ensure-db tributary_bench', { PGPORT })
-run('node --import tsx scripts/migrate.ts', { DATABASE_URL })
-if (!existsSync('dist/index.html')) run('node_modules/.bin/vite build --logLevel warn')
-
-const server = spawn('node', ['--import', 'tsx', 'server/index.ts'], {
-  env: { ...process.env, PORT: String(PORT), DATABASE_URL, NODE_ENV: 'test', SIGN_IN_LIMIT: '1000' },
-  stdio: 'ignore',
-})
-const browser = await chromium.launch({
-  executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-  args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
-})
-let projectId = ''
-let cookie = ''
-try {
-  await waitForHealth()
-  const email = `bench-${Date.now()}@example.test`
-  const signUp = await api('/auth/sign-up', '', { email, name: 'Bench Runner', password: 'bench-password-1' })
-  cookie = signUp.headers.get('set-cookie')!.split(';')[0]!
-  projectId = (await (await api('/projects', cookie, { name: 'Editor benchmark' })).json()).project.id
-  const doc = editorBenchDiagram(TARGET_NODES)
-  const diagram = (await (await api(`/projects/${projectId}/diagrams`, cookie, { name: 'Bench', document: doc })).json()).diagram
+/** Opens one generated diagram and makes the material edit, printing what it measured. */
+async function benchDiagram(context: BrowserContext, targetNodes: number) {
+  const doc = editorBenchDiagram(targetNodes)
+  const created = await api(`/projects/${projectId}/diagrams`, cookie, {
+    name: 'Bench',
+    document: doc,
+  })
+  const diagram = (await created.json()).diagram
   console.log(`Diagram: ${doc.nodes.length} nodes, ${doc.pipes.length} pipes`)
-
-  // Polling a string predicate needs eval, which the app's CSP rightly forbids; the bench bypasses it.
-  const context = await browser.newContext({ viewport: { width: 1600, height: 1000 }, bypassCSP: true })
-  const [name, value] = cookie.split('=') as [string, string]
-  await context.addCookies([{ name, value, url: BASE }])
   const page = await context.newPage()
   await page.goto(`${BASE}/projects`)
   await startFrames(page)
@@ -97,7 +86,9 @@ try {
   const openMs = Date.now() - t0
   const openFrames = await takeFrames(page)
   const drawn = await page.evaluate(labelCount)
-  console.log(`Open to the first screen drawn (${drawn} of ${doc.pipes.length} pipe labels on screen): ${openMs} ms (${stats(openFrames)})`)
+  console.log(
+    `Open to the first screen drawn (${drawn} of ${doc.pipes.length} pipe labels on screen): ${openMs} ms (${stats(openFrames)})`,
+  )
 
   // One edit that resizes every pipe: the default material, steel → copper.
   const before = await page.getByTestId(`pipe-label-${probe}`).innerText()
@@ -114,9 +105,69 @@ try {
   const editMs = Date.now() - t1
   await page.waitForTimeout(500)
   const editFrames = await takeFrames(page)
-  console.log(`Material edit to labels updated: ${editMs} ms, including choosing in the select (${stats(editFrames)})`)
+  console.log(
+    `Material edit to labels updated: ${editMs} ms, including choosing in the select (${stats(editFrames)})`,
+  )
+  await page.close()
+}
+
+run('bash scripts/pg.sh start')
+run(`bash scripts/pg.sh ensure-db ${DATABASE}`, { PGPORT })
+run('node --import tsx scripts/migrate.ts', { DATABASE_URL })
+if (!existsSync('dist/index.html')) run('node_modules/.bin/vite build --logLevel warn')
+
+const server = spawn('node', ['--import', 'tsx', 'server/index.ts'], {
+  env: {
+    ...process.env,
+    PORT: String(PORT),
+    DATABASE_URL,
+    NODE_ENV: 'test',
+    SIGN_IN_LIMIT: '1000',
+  },
+  stdio: 'ignore',
+})
+const browser = await chromium.launch({
+  executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+  args: [
+    '--no-sandbox',
+    '--disable-gpu',
+    '--disable-background-networking',
+    '--disable-component-update',
+    '--disable-sync',
+    '--no-first-run',
+    '--disable-quic',
+  ],
+})
+let projectId = ''
+let cookie = ''
+try {
+  await waitForHealth()
+  const email = `bench-${Date.now()}@example.test`
+  const signUp = await api('/auth/sign-up', '', {
+    email,
+    name: 'Bench Runner',
+    password: 'bench-password-1',
+  })
+  cookie = signUp.headers.get('set-cookie')!.split(';')[0]!
+  projectId = (await (await api('/projects', cookie, { name: 'Editor benchmark' })).json()).project
+    .id
+  // Polling a string predicate needs eval, which the app's CSP rightly forbids; the bench bypasses it.
+  const context = await browser.newContext({
+    viewport: { width: 1600, height: 1000 },
+    bypassCSP: true,
+  })
+  const [name, value] = cookie.split('=') as [string, string]
+  await context.addCookies([{ name, value, url: BASE }])
+  // Other work on the machine stretches every wall time below; print it so runs can be compared.
+  console.log(
+    `Load average at start: ${loadavg()
+      .map((l) => l.toFixed(1))
+      .join(' ')}`,
+  )
+  for (const size of SIZES) await benchDiagram(context, size)
 } finally {
-  if (projectId) await api(`/projects/${projectId}`, cookie, undefined, 'DELETE').catch(() => undefined)
+  if (projectId)
+    await api(`/projects/${projectId}`, cookie, undefined, 'DELETE').catch(() => undefined)
   await browser.close()
   server.kill('SIGTERM')
 }

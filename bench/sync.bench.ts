@@ -1,10 +1,11 @@
 /**
  * Co-editing benchmark (`npm run bench:sync`). In one run, on this machine:
- * 1. edit → peer latency with 5 clients on one diagram through Tributary (validate, lock,
- *    append to the op log, commit, then broadcast), beside the same 5 clients on a bare
+ * 1. edit → peer latency with 5 clients on one diagram through Tributary (validate, decide,
+ *    append to the op log and commit, then broadcast), beside the same 5 clients on a bare
  *    socket.io relay that forwards a message of the same size without doing anything;
  * 2. acknowledged edits per second with 5 clients pipelining edits to one diagram.
- * Uses the private PostgreSQL (started here) and its own database, tributary_bench.
+ * Uses the private PostgreSQL (started here, fsync on: every ack waits for a WAL flush) and its
+ * own database, tributary_bench. Clients and server share this one Node process.
  * Targets: p99 ≤ 3 × the bare relay's p99; ≥ 2,000 acknowledged edits/s.
  */
 import { execSync } from 'node:child_process'
@@ -22,6 +23,9 @@ const CLIENTS = 5
 const EDITS = Number(process.env.BENCH_EDITS ?? 400)
 const THROUGHPUT_MS = Number(process.env.BENCH_MS ?? 4000)
 const WINDOW = 64 // edits in flight per client in the throughput run
+// Per-socket limit for this run. The default (REALTIME_RATE 200/s, burst 400) caps 5 clients at
+// 1,000 edits/s, below the target; 1,000/s per socket is still a limit a runaway client hits.
+const RATE = process.env.BENCH_RATE ?? '1000'
 const PGPORT = process.env.PGPORT ?? '54329'
 process.env.DATABASE_URL ??= `postgres://postgres@127.0.0.1:${PGPORT}/tributary_bench`
 const sh = (cmd: string, env: Record<string, string> = {}) =>
@@ -86,7 +90,7 @@ async function bareRelay() {
 }
 
 async function tributary() {
-  const srv = await startRealtimeServer({ REALTIME_RATE: '100000', REALTIME_BURST: '100000' })
+  const srv = await startRealtimeServer({ REALTIME_RATE: RATE, REALTIME_BURST: RATE })
   const owner = await signUpAt(srv.url, 'Bench Owner')
   const { diagramId } = await createDiagramAt(srv.url, owner, seedDiagram())
   const sockets: ClientSocket[] = []
@@ -125,6 +129,8 @@ async function tributary() {
     s.on(EVENTS.opReject, (m) => {
       rejected++
       if (rejected === 1) console.error('refused:', m.reason)
+      // A refused edit leaves the window too; keep WINDOW in flight.
+      if (running) submit(s, n++, crypto.randomUUID())
     })
   }
   const start = performance.now()
@@ -159,6 +165,6 @@ console.log(
     `target ≥ 2,000): ${result.perSecond >= 2000 ? 'met' : 'NOT met'}`,
 )
 console.log(
-  '(the bench raises the per-socket rate limit, REALTIME_RATE, so it measures the server, not the limit)',
+  `(per-socket rate limit for this run: ${RATE} messages/s, burst ${RATE}; default 200/s, burst 400)`,
 )
 process.exit(0)

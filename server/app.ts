@@ -22,6 +22,11 @@ import { invitationsRouter } from './modules/invitations/invitations.router.ts'
 import { projectInvitationsRouter } from './modules/invitations/project-invitations.router.ts'
 import { membersRouter } from './modules/members/members.router.ts'
 import { organisationsRouter } from './modules/organisations/organisations.router.ts'
+import { attachmentsRouter } from './modules/comments/attachments.router.ts'
+import { commentsRouter } from './modules/comments/comments.router.ts'
+import { createReviewFeed, type ReviewFeed } from './modules/comments/review-feed.ts'
+import { reviewsRouter } from './modules/reviews/reviews.router.ts'
+import { reportReviewStatus } from './modules/reviews/reviews.service.ts'
 
 const distDir = fileURLToPath(new URL('../dist', import.meta.url))
 
@@ -31,6 +36,8 @@ export interface AppParts {
   sessionHandlers: RequestHandler[]
   /** Ops committed over HTTP (save, restore), for the realtime layer to broadcast. */
   opFeed: OpFeed
+  /** Comment and review changes, for the realtime layer to broadcast (comments-relay.ts). */
+  reviewFeed: ReviewFeed
 }
 
 /** Builds the Express app without listening; index.ts and the tests own the HTTP server. */
@@ -43,6 +50,7 @@ export function createApp(env: Env, db: Db, pool: pg.Pool): AppParts {
 
   const passport = createPassport(db)
   const opFeed = createOpFeed()
+  const reviewFeed = createReviewFeed()
   const sessionHandlers: RequestHandler[] = [
     sessionMiddleware(pool, env.SESSION_SECRET, env.NODE_ENV === 'production' && !!env.APP_ORIGIN?.startsWith('https')),
     passport.session(),
@@ -68,8 +76,15 @@ export function createApp(env: Env, db: Db, pool: pg.Pool): AppParts {
   app.use('/api/projects/:projectId/members', membersRouter(db))
   app.use('/api/projects/:projectId/invitations', projectInvitationsRouter(db, mailer, origin))
   app.use('/api/projects/:projectId/activity', activityRouter(db))
+  const reviewDeps = { db, mailer, origin, feed: reviewFeed }
+  app.use('/api/projects/:projectId/diagrams/:diagramId/comments', commentsRouter(reviewDeps))
+  app.use('/api/projects/:projectId/diagrams/:diagramId/review', reviewsRouter(reviewDeps))
+  app.use('/api/projects/:projectId/attachments', attachmentsRouter(db))
   app.use('/api/projects/:projectId/diagrams', diagramsRouter(db, opFeed))
-  app.use('/api/projects/:projectId/diagrams', reportsRouter(db))
+  app.use(
+    '/api/projects/:projectId/diagrams',
+    reportsRouter(db, { reviewStatus: reportReviewStatus }),
+  )
   app.use('/api/projects', projectsRouter(db))
   app.use('/api', apiNotFound)
 
@@ -78,5 +93,5 @@ export function createApp(env: Env, db: Db, pool: pg.Pool): AppParts {
     app.get('/{*splat}', (_req, res) => res.sendFile('index.html', { root: distDir, maxAge: 0 }))
   }
   app.use(errorHandler)
-  return { app, sessionHandlers, opFeed }
+  return { app, sessionHandlers, opFeed, reviewFeed }
 }

@@ -4,6 +4,7 @@ import { createApp } from './app.ts'
 import { readEnv } from './config/env.ts'
 import { openDb } from './db/knex.ts'
 import { attachRealtime } from './realtime/io.ts'
+import { relayComments } from './realtime/comments-relay.ts'
 import { startFakeSmtp } from './mail/fake-smtp.ts'
 import { withFakeSmtp } from './mail/mailer.ts'
 
@@ -13,7 +14,7 @@ const pool = new pg.Pool({ connectionString: env.DATABASE_URL, max: 5 })
 // Without a configured provider, mail goes to a local fake SMTP server (README, "Mail").
 const fakeSmtp = env.SMTP_HOST ? null : await startFakeSmtp(db, env.FAKE_SMTP_PORT)
 if (fakeSmtp) console.log(`Mail is captured by the local fake SMTP server on port ${fakeSmtp.port}`)
-const { app, sessionHandlers, opFeed } = createApp(
+const { app, sessionHandlers, opFeed, reviewFeed } = createApp(
   fakeSmtp ? withFakeSmtp(env, fakeSmtp) : env,
   db,
   pool,
@@ -21,6 +22,7 @@ const { app, sessionHandlers, opFeed } = createApp(
 const server = createServer(app)
 // Co-editing over socket.io on the same port (DEVELOPERS.md, "Co-editing").
 const realtime = attachRealtime(server, { env, db, pool, sessionHandlers, opFeed })
+relayComments(realtime.io, reviewFeed)
 
 server.listen(env.PORT, env.HOST, () => {
   console.log(`Tributary is serving http://${env.HOST}:${env.PORT}`)

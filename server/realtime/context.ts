@@ -11,7 +11,11 @@ import type {
   ServerToClientEvents,
 } from '../../shared/protocol/event-maps.ts'
 import { SERVER_EVENTS } from '../../shared/protocol/events.ts'
-import type { MessageRefused, OpRejectCode } from '../../shared/protocol/server-messages.ts'
+import type {
+  MessageRefused,
+  OpApplied,
+  OpRejectCode,
+} from '../../shared/protocol/server-messages.ts'
 import type { Db } from '../db/knex.ts'
 import type { OpQueue } from '../modules/diagrams/operations.queue.ts'
 
@@ -27,6 +31,8 @@ export interface RealtimeContext {
   io: RealtimeServer
   db: Db
   queue: OpQueue
+  /** Hands a committed op to the other server processes (batched; see ops.ts). */
+  relay: (applied: OpApplied) => void
   limits: RealtimeLimits
   /** Handler work still running; `close()` waits for it before the pools end. */
   inflight: Set<Promise<unknown>>
@@ -59,21 +65,19 @@ export interface Joined {
   checkedAt: number
 }
 
+/**
+ * Between server processes, through the adapter: committed ops, a batch per tick, so a group
+ * commit costs one NOTIFY rather than one per op.
+ */
+export interface RelayEvents {
+  'ops:committed': (batch: OpApplied[]) => void
+}
+
 /** Incoming payloads are typed `unknown` on purpose: every handler parses them with zod. */
 export type IncomingEvents = { [E in keyof ClientToServerEvents]: (payload: unknown) => void }
 
-export type RealtimeServer = Server<
-  IncomingEvents,
-  ServerToClientEvents,
-  Record<string, never>,
-  SocketData
->
-export type RealtimeSocket = Socket<
-  IncomingEvents,
-  ServerToClientEvents,
-  Record<string, never>,
-  SocketData
->
+export type RealtimeServer = Server<IncomingEvents, ServerToClientEvents, RelayEvents, SocketData>
+export type RealtimeSocket = Socket<IncomingEvents, ServerToClientEvents, RelayEvents, SocketData>
 
 /** Everything a handler knows about its socket. */
 export interface SocketState {

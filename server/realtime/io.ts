@@ -26,7 +26,7 @@ import {
 } from './context.ts'
 import { guardSocket } from './guard.ts'
 import { joinHandlers } from './join.ts'
-import { opHandlers } from './ops.ts'
+import { opHandlers, receiveRelayedOps, relayOps } from './ops.ts'
 import { originAllowed } from './origin.ts'
 import { broadcastPresence, presenceHandlers } from './presence.ts'
 import { socketUser, useHttpSession } from './session.ts'
@@ -78,7 +78,9 @@ export function attachRealtime(httpServer: HttpServer, options: RealtimeOptions)
   useHttpSession(io, sessionHandlers)
 
   const queue = createOpQueue(db)
-  const ctx: RealtimeContext = { io, db, queue, limits, inflight: new Set(), closing: false }
+  const relay = relayOps(io)
+  const ctx: RealtimeContext = { io, db, queue, relay, limits, inflight: new Set(), closing: false }
+  receiveRelayedOps(io)
 
   io.on('connection', (socket) => {
     const user = socketUser(socket.request)
@@ -102,7 +104,8 @@ export function attachRealtime(httpServer: HttpServer, options: RealtimeOptions)
   })
 
   const unsubscribe = opFeed?.subscribe((applied) => {
-    io.to(roomOf(applied.diagramId)).emit(SERVER_EVENTS.opApplied, applied)
+    io.local.to(roomOf(applied.diagramId)).emit(SERVER_EVENTS.opApplied, applied)
+    relay(applied)
   })
 
   return {
@@ -113,6 +116,8 @@ export function attachRealtime(httpServer: HttpServer, options: RealtimeOptions)
       io.disconnectSockets(true)
       while (ctx.inflight.size) await Promise.allSettled([...ctx.inflight])
       await queue.idle()
+      // Lets the last batch of committed ops reach the other processes (ops.ts, relayOps).
+      await new Promise((resolve) => setImmediate(resolve))
       await io.close()
     },
   }

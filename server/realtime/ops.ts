@@ -1,12 +1,28 @@
 /**
  * `op:submit`: parse the envelope, make sure the socket joined the diagram, hand the op to the
  * diagram's commit queue (synchronously, so a socket's ops keep their order), and only after the
- * commit acknowledge the sender and broadcast to the room (other processes through the adapter).
+ * commit acknowledge the sender and broadcast to the room: at once to this process's sockets,
+ * and to other processes in one adapter message per tick (`relayOps`), because the adapter
+ * awaits a NOTIFY (its own commit, its own WAL flush) before delivering even locally.
  */
 import { describeMessageError, opSubmitSchema } from '../../shared/protocol/client-messages.ts'
 import { CLIENT_EVENTS, SERVER_EVENTS } from '../../shared/protocol/events.ts'
-import type { OpAck, OpReject } from '../../shared/protocol/server-messages.ts'
-import { handle, refuse, roomOf, type RealtimeContext, type SocketState } from './context.ts'
+import type { OpAck, OpApplied, OpReject } from '../../shared/protocol/server-messages.ts'
+import {
+  handle,
+  refuse,
+  roomOf,
+  type RealtimeContext,
+  type RealtimeServer,
+  type SocketState,
+} from './context.ts'
+
+const RELAYED = 'ops:committed'
+/**
+ * Ops per adapter message: keeps a message under the adapter's NOTIFY threshold (8,000 bytes),
+ * above which it is first written to a table.
+ */
+const RELAY_CHUNK = 16
 
 export function opHandlers(ctx: RealtimeContext, state: SocketState): void {
   const { socket } = state
@@ -45,6 +61,44 @@ export function opHandlers(ctx: RealtimeContext, state: SocketState): void {
     const ack: OpAck = { diagramId, clientOpId, revision: outcome.revision }
     if (outcome.duplicate) ack.duplicate = true
     socket.emit(SERVER_EVENTS.opAck, ack)
-    if (outcome.applied) socket.to(roomOf(diagramId)).emit(SERVER_EVENTS.opApplied, outcome.applied)
+    if (outcome.applied) {
+      socket.to(roomOf(diagramId)).local.emit(SERVER_EVENTS.opApplied, outcome.applied)
+      ctx.relay(outcome.applied)
+    }
+  })
+}
+
+/**
+ * Collects committed ops and sends them to the other server processes once per tick: a group
+ * commit resolves all its ops in one tick, so it becomes one adapter message. Returns the
+ * function that takes one op.
+ */
+export function relayOps(io: RealtimeServer): (applied: OpApplied) => void {
+  let batch: OpApplied[] = []
+  const flush = () => {
+    const sending = batch
+    batch = []
+    for (let i = 0; i < sending.length; i += RELAY_CHUNK) {
+      io.serverSideEmit(RELAYED, sending.slice(i, i + RELAY_CHUNK))
+    }
+  }
+  return (applied) => {
+    if (!batch.length) setImmediate(flush)
+    batch.push(applied)
+  }
+}
+
+/**
+ * Delivers ops committed by another process to this process's sockets in their rooms. The batch
+ * comes from a server process through PostgreSQL, not from a client; it is still checked for
+ * shape so a malformed message is dropped rather than half-delivered.
+ */
+export function receiveRelayedOps(io: RealtimeServer): void {
+  io.on(RELAYED, (batch: unknown) => {
+    if (!Array.isArray(batch)) return
+    for (const applied of batch as OpApplied[]) {
+      if (typeof applied?.diagramId !== 'string' || typeof applied.revision !== 'number') continue
+      io.local.to(roomOf(applied.diagramId)).emit(SERVER_EVENTS.opApplied, applied)
+    }
   })
 }

@@ -38,6 +38,7 @@ const owners = (s: number): Row['expect'] => [401, 404, 403, 403, 403, s]
 const p = (w: World) => `/api/projects/${w.projectId}`
 const o = (w: World) => `/api/organisations/${w.organisationId}`
 const d = (w: World) => `${p(w)}/diagrams/${w.diagramId}`
+const NO_ID = '00000000-0000-4000-8000-000000000000'
 
 const ROWS: Row[] = [
   { route: 'GET /api/health', path: () => '/api/health', expect: all(200) },
@@ -233,6 +234,59 @@ const ROWS: Row[] = [
     route: 'GET /api/projects/:id/activity',
     path: (w) => `${p(w)}/activity`,
     expect: readers(200),
+  },
+  // comments and review (the matrix diagram is empty: a new thread has no node to pin to, so
+  // callers who may comment get 400; an unknown thread is 404 once the role check has passed)
+  {
+    route: 'GET /api/projects/:id/diagrams/:diagramId/comments',
+    path: (w) => `${d(w)}/comments`,
+    expect: readers(200),
+  },
+  {
+    route: 'POST /api/projects/:id/diagrams/:diagramId/comments',
+    path: (w) => `${d(w)}/comments`,
+    body: () => ({ target: { kind: 'node', id: 'n-missing' }, body: 'Check this' }),
+    expect: [401, 404, 403, 400, 400, 400],
+  },
+  {
+    route: 'POST /api/projects/:id/diagrams/:diagramId/comments/:threadId/replies',
+    path: (w) => `${d(w)}/comments/${NO_ID}/replies`,
+    body: () => ({ body: 'Agreed' }),
+    expect: [401, 404, 403, 404, 404, 404],
+  },
+  {
+    route: 'PATCH /api/projects/:id/diagrams/:diagramId/comments/:threadId',
+    path: (w) => `${d(w)}/comments/${NO_ID}`,
+    body: () => ({ resolved: true }),
+    expect: [401, 404, 403, 404, 404, 404],
+  },
+  {
+    route: 'POST /api/projects/:id/diagrams/:diagramId/comments/:threadId/attachments',
+    path: (w) => `${d(w)}/comments/${NO_ID}/attachments`,
+    expect: [401, 404, 403, 404, 404, 404],
+  },
+  {
+    route: 'GET /api/projects/:id/attachments/:attachmentId',
+    path: (w) => `${p(w)}/attachments/${NO_ID}`,
+    expect: [401, 404, 404, 404, 404, 404],
+  },
+  {
+    route: 'GET /api/projects/:id/diagrams/:diagramId/review',
+    path: (w) => `${d(w)}/review`,
+    expect: readers(200),
+  },
+  {
+    route: 'POST /api/projects/:id/diagrams/:diagramId/review/submissions',
+    path: (w) => `${d(w)}/review/submissions`,
+    body: () => ({ note: 'Ready for review' }),
+    expect: editors(201),
+  },
+  // Nothing has been submitted in a fresh world: whoever may decide hears 409.
+  {
+    route: 'POST /api/projects/:id/diagrams/:diagramId/review/decisions',
+    path: (w) => `${d(w)}/review/decisions`,
+    body: () => ({ decision: 'approved', revision: 0 }),
+    expect: [401, 404, 403, 409, 403, 409],
   },
   // development mailbox (every self-made account administers its own practice)
   { route: 'GET /api/dev/mail/access', path: () => '/api/dev/mail/access', expect: signedIn(200) },

@@ -135,6 +135,29 @@ describe('two designers edit one diagram', () => {
     expect((await stored()).revision).toBe(revision)
   })
 
+  it('refuses the next edit of an editor demoted between two edits', async () => {
+    // The first edit leaves the editor's role in the op cache; the second must still be checked
+    // against the database, not against that cache.
+    const e = client(editor)
+    await waitUntil(() => e.live, 'join')
+    e.edit({ type: 'node.update', id: 'J2', patch: { label: 'Level 3 branch' } })
+    await waitUntil(() => e.synced, 'first edit acknowledged')
+    const revision = (await stored()).revision
+    const member = { project_id: projectId, user_id: editor.user.id }
+    await srv.db('project_members').where(member).update({ role: 'viewer' })
+    try {
+      e.edit({ type: 'node.update', id: 'J2', patch: { label: 'Not any more' } })
+      await waitUntil(() => e.rejects.length === 1, 'reject')
+      expect(e.rejects[0]).toMatchObject({
+        code: 'forbidden',
+        reason: expect.stringMatching(/viewer/),
+      })
+      expect((await stored()).revision).toBe(revision)
+    } finally {
+      await srv.db('project_members').where(member).update({ role: 'editor' })
+    }
+  })
+
   it('never applies a resent op twice', async () => {
     const a = client(owner)
     await waitUntil(() => a.live, 'join')

@@ -17,6 +17,14 @@ interface Waiting {
 /** Largest group in one transaction, so one commit never holds the lock for long. */
 const MAX_GROUP = 500
 
+/**
+ * After a group of several ops, how long to let the authors' next ops arrive before forming the
+ * next group. Their answers to the acks just sent come back together a moment later; without
+ * this pause the first of them forms a group of one and the rest wait a whole commit for it,
+ * so groups alternate between large and single. A lone edit (light load) never waits.
+ */
+const GATHER_MS = 2
+
 export interface OpQueue {
   /** Resolves once the op is committed or refused; never rejects. */
   submit(diagramId: string, item: OpSubmission): Promise<OpOutcome>
@@ -46,6 +54,7 @@ export function createOpQueue(db: Db, cache = new DocumentCache()): OpQueue {
           cache,
         )
         group.forEach((w, i) => w.resolve(outcomes[i]!))
+        if (group.length > 1) await new Promise((resolve) => setTimeout(resolve, GATHER_MS))
       } catch (error) {
         console.error(`commit to diagram ${diagramId} failed:`, error)
         for (const w of group) {

@@ -154,3 +154,64 @@ export async function appendOpsAndState(
   )
   return (result as { rows: { at: Date }[] }).rows[0]!.at
 }
+
+/**
+ * The optimistic commit, one statement and so one round trip and one transaction: append the
+ * rows, write the document and revision, and (when asked) keep a snapshot, but only if the
+ * diagram is still at `baseRevision` and every author in `roles` still has that role. Under READ
+ * COMMITTED the UPDATE re-checks its WHERE on the newest row version after any concurrent
+ * writer, and the INSERTs read the UPDATE's RETURNING, so either all of it happens or none.
+ * A resend already in the log fails the unique index (23505). Returns null when nothing was
+ * written because the revision or a role moved on.
+ */
+export async function appendIfCurrent(
+  db: Db,
+  id: string,
+  baseRevision: number,
+  roles: { user_id: string; role: ProjectRole }[],
+  rows: Omit<OpRow, 'created_at'>[],
+  state: { document: Diagram; revision: number; userId: string | null },
+  snapshot: boolean,
+): Promise<Date | null> {
+  const keepSnapshot = snapshot
+    ? `, snap AS (
+         INSERT INTO diagram_snapshots (diagram_id, revision, document)
+         SELECT id, revision, document FROM upd
+         ON CONFLICT (diagram_id, revision) DO NOTHING
+       )`
+    : ''
+  const result = await db.raw(
+    `WITH upd AS (
+       UPDATE diagrams AS d SET document = ?::jsonb, revision = ?, updated_by = ?,
+         updated_at = now(),
+         -- as the locked path: the row takes the document's name when that differs
+         name = CASE WHEN ?::text <> '' AND d.name IS DISTINCT FROM ?::text THEN ?::text ELSE d.name END
+       WHERE d.id = ? AND d.revision = ? AND NOT EXISTS (
+         SELECT 1 FROM jsonb_to_recordset(?::jsonb) AS g(user_id uuid, role text)
+         WHERE NOT EXISTS (SELECT 1 FROM project_members m
+           WHERE m.project_id = d.project_id AND m.user_id = g.user_id AND m.role = g.role))
+       RETURNING d.id, d.revision, d.document
+     ), ins AS (
+       INSERT INTO diagram_ops (diagram_id, revision, client_op_id, author_id, source, restored_from, op)
+       SELECT upd.id, r.revision, r.client_op_id, r.author_id, r.source, r.restored_from, r.op
+       FROM upd, jsonb_to_recordset(?::jsonb) AS r(revision int, client_op_id text, author_id uuid,
+         source text, restored_from int, op jsonb)
+       RETURNING 1
+     )${keepSnapshot}
+     SELECT now() AS at, (SELECT count(*) FROM upd)::int AS updated`,
+    [
+      JSON.stringify(state.document),
+      state.revision,
+      state.userId,
+      state.document.name.trim(),
+      state.document.name,
+      state.document.name.trim(),
+      id,
+      baseRevision,
+      JSON.stringify(roles),
+      JSON.stringify(rows.map(({ diagram_id: _d, ...row }) => row)),
+    ],
+  )
+  const row = (result as { rows: { at: Date; updated: number }[] }).rows[0]!
+  return row.updated === 1 ? row.at : null
+}

@@ -1,21 +1,21 @@
 /**
  * The authoritative op path. For a group of submissions to one diagram, in one transaction:
- * lock the diagram row (`FOR UPDATE`, which serialises every server process), answer resends
- * from the log, check each op (role, schema, ids, graph rules), give each accepted op the next
- * revision, append them to `diagram_ops`, write the new document and revision, commit. Only the
- * caller, after this returns, acknowledges and broadcasts.
+ * decide each op (role, schema, ids, graph rules) against the current document, give each
+ * accepted op the next revision, append them to `diagram_ops`, write the new document and
+ * revision, commit. Only the caller, after this returns, acknowledges and broadcasts.
+ *
+ * Two ways to get there. While this process holds the latest document, the optimistic commit
+ * (operations.fast-path.ts) does it in one conditional statement. Otherwise, or when that
+ * statement finds the revision or a role moved on, a resend, or a refusal to explain, the
+ * locked path below locks the diagram row (`FOR UPDATE`, which serialises every server
+ * process), reads roles and the log's answer to resends, and decides afresh.
  */
-import type { Diagram } from '../../../shared/document/model.ts'
-import type { OpApplied } from '../../../shared/protocol/server-messages.ts'
+import type { ProjectRole } from '../../../shared/auth/roles.ts'
 import type { Db } from '../../db/knex.ts'
+import { applyGroup, withApplied } from './operations.apply.ts'
 import { DocumentCache } from './operations.cache.ts'
-import { decide } from './operations.decide.ts'
-import {
-  appendOpsAndState,
-  insertSnapshot,
-  lockDiagramState,
-  type OpRow,
-} from './operations.repo.ts'
+import { commitIfCurrent } from './operations.fast-path.ts'
+import { appendOpsAndState, insertSnapshot, lockDiagramState } from './operations.repo.ts'
 import type { OpOutcome, OpSubmission } from './operations.types.ts'
 
 /** A snapshot of the whole document is kept at least every this many revisions. */
@@ -35,6 +35,8 @@ export async function commitOps(
   items: readonly OpSubmission[],
   cache: DocumentCache = shared,
 ): Promise<OpOutcome[]> {
+  const fast = await commitIfCurrent(db, diagramId, items, cache, SNAPSHOT_EVERY)
+  if (fast) return fast
   for (let attempt = 1; ; attempt++) {
     try {
       return await db.transaction((trx) => commitInTransaction(trx, diagramId, items, cache))
@@ -57,66 +59,38 @@ async function commitInTransaction(
   const cached = cache.latest(diagramId)
   const row = await lockDiagramState(trx, diagramId, cached?.revision ?? -1, authors, clientOpIds)
   if (!row) {
+    cache.forget(diagramId)
     return items.map(() => ({ kind: 'reject', code: 'not-found', reason: 'no such diagram' }))
   }
-  const startRevision = row.revision
-  let doc: Diagram = row.document ?? cached!.doc
-  const roles = new Map(row.roles.map((r) => [r.user_id, r.role]))
+  const start = { doc: row.document ?? cached!.doc, revision: row.revision }
+  const roles = rolesAfterRead(cached?.roles, authors, row.roles)
   const seen = new Map(row.seen.map((r) => [r.client_op_id, r.revision]))
-
-  let revision = startRevision
-  const rows: Omit<OpRow, 'created_at'>[] = []
-  const outcomes: OpOutcome[] = items.map((item) => {
-    const earlier = seen.get(item.clientOpId)
-    if (earlier !== undefined) return { kind: 'ack', revision: earlier, duplicate: true }
-    const decision = decide(doc, revision, item, roles.get(item.author.id) ?? null)
-    if (!decision.ok) return { ...decision.outcome, revision }
-    doc = decision.doc
-    revision += 1
-    seen.set(item.clientOpId, revision)
-    rows.push({
-      diagram_id: diagramId,
-      revision,
-      client_op_id: item.clientOpId,
-      author_id: item.author.id,
-      source: item.source,
-      restored_from: item.restoredFrom ?? null,
-      op: decision.op,
-    })
-    return { kind: 'ack', revision, duplicate: false }
-  })
-  if (!rows.length) return outcomes
+  const { outcomes, rows, doc, revision } = applyGroup(diagramId, start, items, roles, seen)
+  if (!rows.length) {
+    // Nothing written, but what was read is the committed state: keep it for the next group.
+    cache.set(diagramId, start.revision, start.doc, roles)
+    return outcomes
+  }
 
   const lastAuthor = rows[rows.length - 1]!.author_id
   const renamed = doc.name.trim() && doc.name !== row.name ? doc.name.trim() : undefined
   const state = { document: doc, revision, userId: lastAuthor, name: renamed }
   const at = (await appendOpsAndState(trx, diagramId, rows, state)).toISOString()
-  if (Math.floor(revision / SNAPSHOT_EVERY) > Math.floor(startRevision / SNAPSHOT_EVERY)) {
+  if (Math.floor(revision / SNAPSHOT_EVERY) > Math.floor(start.revision / SNAPSHOT_EVERY)) {
     await insertSnapshot(trx, diagramId, revision, doc)
   }
-  cache.set(diagramId, revision, doc)
+  cache.set(diagramId, revision, doc, roles)
   return withApplied(outcomes, items, rows, at)
 }
 
-/** Attaches the broadcast message to each accepted outcome. */
-function withApplied(
-  outcomes: OpOutcome[],
-  items: readonly OpSubmission[],
-  rows: Omit<OpRow, 'created_at'>[],
-  at: string,
-): OpOutcome[] {
-  const byOpId = new Map(rows.map((r) => [r.client_op_id, r]))
-  return outcomes.map((outcome, i) => {
-    const row = byOpId.get(items[i]!.clientOpId)
-    if (outcome.kind !== 'ack' || outcome.duplicate || !row) return outcome
-    const applied: OpApplied = {
-      diagramId: row.diagram_id,
-      revision: row.revision,
-      op: row.op,
-      clientOpId: row.client_op_id,
-      author: { id: items[i]!.author.id, name: items[i]!.author.name },
-      at,
-    }
-    return { ...outcome, applied }
-  })
+/** The cached roles, with the authors just read replaced by what the database says now. */
+function rolesAfterRead(
+  cached: ReadonlyMap<string, ProjectRole> | undefined,
+  authors: string[],
+  read: { user_id: string; role: ProjectRole }[],
+): Map<string, ProjectRole> {
+  const roles = new Map(cached)
+  for (const id of authors) roles.delete(id)
+  for (const r of read) roles.set(r.user_id, r.role)
+  return roles
 }

@@ -49,8 +49,13 @@ export const PIPE_EDGE_TYPE = 'pipe'
 /** Nodes and pipes talk to the editor through Vue Flow's own events only, not custom ones. */
 type NoCustomEvents = Record<string, never>
 
-/** A canvas node; its `type` is the diagram node kind, so an unknown kind fails to compile. */
-export type DiagramFlowNode = Node<DiagramNodeData, NoCustomEvents, NodeKind>
+/**
+ * A canvas node; its `type` is the diagram node kind, so an unknown kind fails to compile.
+ * `selected` is not in Vue Flow's input node type, but Vue Flow copies it onto the graph node.
+ */
+export type DiagramFlowNode = Node<DiagramNodeData, NoCustomEvents, NodeKind> & {
+  selected?: boolean
+}
 
 /**
  * A canvas edge for one pipe. `selected` is not in Vue Flow's input edge type, but Vue Flow copies
@@ -58,6 +63,26 @@ export type DiagramFlowNode = Node<DiagramNodeData, NoCustomEvents, NodeKind>
  */
 export type PipeFlowEdge = Edge<PipeEdgeData, NoCustomEvents, typeof PIPE_EDGE_TYPE> & {
   selected?: boolean
+}
+
+/**
+ * Whether two pieces of plain data (results, issues, document objects) hold the same values.
+ * Identical objects answer at once, so unchanged document nodes cost nothing.
+ */
+export function samePlain(a: unknown, b: unknown): boolean {
+  if (a === b) return true
+  if (typeof a !== 'object' || typeof b !== 'object' || a === null || b === null) return false
+  if (Array.isArray(a) !== Array.isArray(b)) return false
+  // for…in rather than Object.keys: this runs for every node and pipe on every calculation.
+  const left = a as Record<string, unknown>
+  const right = b as Record<string, unknown>
+  let keys = 0
+  for (const key in left) {
+    if (!samePlain(left[key], right[key])) return false
+    keys++
+  }
+  for (const _key in right) keys--
+  return keys === 0
 }
 
 /** Node components by kind, for `<VueFlow :node-types>`. */

@@ -1,42 +1,48 @@
 import { createPinia, setActivePinia } from 'pinia'
 import { afterEach, beforeEach, describe, expect, test, vi } from 'vitest'
 import type { Diagram } from '@shared/document/model'
-import { SAVE_DEBOUNCE_MS, SAVE_RETRY_MS, useDocumentStore, type Saver } from '@/stores/document'
+import type { Operation } from '@shared/document/operations'
+import type { OpSubmit } from '@shared/protocol/client-messages'
+import type { OpApplied } from '@shared/protocol/server-messages'
+import { useConnectionStore } from '@/stores/connection'
+import { MAX_TRANSIENT_RETRIES, useDocumentStore } from '@/stores/document'
 import { sampleDiagram } from '../document/sample'
 
-type SaveCall = { diagramId: string; doc: Diagram; revision: number }
-
-/** A saver whose answers the test decides, one call at a time. */
-function fakeSaver() {
-  const calls: SaveCall[] = []
-  const pending: { resolve: (rev: { revision: number }) => void; reject: (e: Error) => void }[] = []
-  const saver: Saver = (diagramId, doc, revision) => {
-    calls.push({ diagramId, doc, revision })
-    return new Promise((resolve, reject) => pending.push({ resolve, reject }))
-  }
-  return {
-    saver,
-    calls,
-    succeed: async (revision: number) => {
-      pending.shift()!.resolve({ revision })
-      await vi.advanceTimersByTimeAsync(0)
-    },
-    fail: async (message: string) => {
-      pending.shift()!.reject(new Error(message))
-      await vi.advanceTimersByTimeAsync(0)
-    },
-  }
-}
+const DIAGRAM = 'd-1'
 
 function openStore() {
   const store = useDocumentStore()
-  expect(store.load('d-1', sampleDiagram(), 7)).toEqual({ ok: true })
+  expect(store.load(DIAGRAM, sampleDiagram(), 7)).toEqual({ ok: true })
   return store
 }
 
+/** The store with a live link whose sent ops the test reads. */
+function liveStore() {
+  const store = openStore()
+  const sent: OpSubmit[] = []
+  store.attachOutbox((submit) => sent.push(submit))
+  useConnectionStore().set('synced')
+  return { store, sent }
+}
+
+const remote = (revision: number, op: Operation, clientOpId = `other-${revision}`): OpApplied => ({
+  diagramId: DIAGRAM,
+  revision,
+  op,
+  clientOpId,
+  author: { id: 'u-2', name: 'Robin Vale' },
+  at: '2026-12-01T10:00:00.000Z',
+})
+const ack = (submit: OpSubmit, revision: number) => ({
+  diagramId: DIAGRAM,
+  clientOpId: submit.clientOpId,
+  revision,
+})
+const fixture = (store: ReturnType<typeof useDocumentStore>, id = 'F1') =>
+  store.doc.nodes.find((node) => node.id === id) as { count: number; label: string } | undefined
+
 beforeEach(() => {
   setActivePinia(createPinia())
-  vi.useFakeTimers()
 })
 afterEach(() => {
   useDocumentStore().unload()
@@ -60,7 +66,9 @@ describe('document store: edits', () => {
       ok: true,
     })
     expect(store.doc.nodes.find((node) => node.id === 'F1')).toMatchObject({ count: 3 })
-    expect(store.saveState).toBe('dirty')
+    // Not connected in this test: the edit is kept, waiting to be sent.
+    expect(store.saveState).toBe('offline')
+    expect(store.pendingCount).toBe(1)
 
     const refused = store.apply({ type: 'node.remove', id: 'F9' })
     expect(refused).toEqual({ ok: false, error: 'node.remove: no node with id F9' })
@@ -146,128 +154,191 @@ describe('document store: edits', () => {
   })
 })
 
-describe('document store: autosave', () => {
-  test('saves once after the quiet period, with the latest document and revision', async () => {
-    const store = openStore()
-    const fake = fakeSaver()
-    store.configureSaver(fake.saver)
-    store.apply({ type: 'diagram.rename', name: 'A' })
-    await vi.advanceTimersByTimeAsync(SAVE_DEBOUNCE_MS - 100)
-    store.apply({ type: 'diagram.rename', name: 'B' })
-    await vi.advanceTimersByTimeAsync(SAVE_DEBOUNCE_MS - 100)
-    store.apply({ type: 'diagram.rename', name: 'C' })
-    expect(fake.calls).toHaveLength(0)
-    await vi.advanceTimersByTimeAsync(SAVE_DEBOUNCE_MS)
-    expect(fake.calls).toHaveLength(1)
-    expect(fake.calls[0]).toMatchObject({ diagramId: 'd-1', revision: 7 })
-    expect(fake.calls[0]!.doc.name).toBe('C')
+describe('document store: sync with the server', () => {
+  test('an edit shows at once, goes out with the confirmed revision, and is saved on ack', () => {
+    const { store, sent } = liveStore()
+    store.apply({ type: 'node.update', id: 'F1', patch: { count: 3 } })
+    expect(fixture(store)?.count).toBe(3)
+    expect(sent).toHaveLength(1)
+    expect(sent[0]).toMatchObject({
+      diagramId: DIAGRAM,
+      baseRevision: 7,
+      op: { type: 'node.update' },
+    })
     expect(store.saveState).toBe('saving')
-    await fake.succeed(8)
+    store.acknowledged(ack(sent[0]!, 8))
     expect(store.saveState).toBe('saved')
     expect(store.revision).toBe(8)
+    expect(fixture(store)?.count).toBe(3)
   })
 
-  test('an edit made during a save is saved afterwards', async () => {
+  test('offline, edits are kept (not sent) and offered for replay in order', async () => {
     const store = openStore()
-    const fake = fakeSaver()
-    store.configureSaver(fake.saver)
+    const sent: OpSubmit[] = []
+    store.attachOutbox((submit) => sent.push(submit))
+    useConnectionStore().set('offline', 'lost')
     store.apply({ type: 'diagram.rename', name: 'A' })
-    await vi.advanceTimersByTimeAsync(SAVE_DEBOUNCE_MS)
-    store.apply({ type: 'diagram.rename', name: 'B' })
-    await fake.succeed(8)
-    expect(store.saveState).toBe('dirty')
-    await vi.advanceTimersByTimeAsync(SAVE_DEBOUNCE_MS)
-    expect(fake.calls).toHaveLength(2)
-    expect(fake.calls[1]).toMatchObject({ revision: 8 })
-    expect(fake.calls[1]!.doc.name).toBe('B')
-    await fake.succeed(9)
+    store.apply({ type: 'node.update', id: 'F1', patch: { count: 2 } })
+    expect(sent).toHaveLength(0)
+    expect(store.saveState).toBe('offline')
+    expect(store.saveError).toBe('2 changes are kept here and sent when the connection returns')
+    expect(await store.flush()).toBe(false)
+    const replay = store.replayable()
+    expect(replay.map((s) => s.op.type)).toEqual(['diagram.rename', 'node.update'])
+    expect(replay.every((s) => s.baseRevision === 7)).toBe(true)
+  })
+
+  test("others' edits to other properties of the same node both survive", () => {
+    const { store, sent } = liveStore()
+    store.apply({ type: 'node.update', id: 'F1', patch: { count: 3 } })
+    store.remoteApplied(
+      remote(8, { type: 'node.update', id: 'F1', patch: { label: 'Wash basin' } }),
+    )
+    expect(fixture(store)).toMatchObject({ count: 3, label: 'Wash basin' })
+    store.acknowledged(ack(sent[0]!, 9))
+    expect(store.replica.confirmed.nodes.find((n) => n.id === 'F1')).toMatchObject({
+      count: 3,
+      label: 'Wash basin',
+    })
     expect(store.saveState).toBe('saved')
   })
 
-  test('failure keeps the document, shows the error, retries with backoff until saved', async () => {
-    const store = openStore()
-    const fake = fakeSaver()
-    store.configureSaver(fake.saver)
+  test.each([
+    ['mine is committed later', 9, 8, 3],
+    ['theirs is committed later', 8, 9, 5],
+  ])('the same property: the later revision wins (%s)', (_case, mine, theirs, expected) => {
+    const { store, sent } = liveStore()
+    store.apply({ type: 'node.update', id: 'F1', patch: { count: 3 } })
+    const events = [
+      { revision: mine, run: () => store.acknowledged(ack(sent[0]!, mine)) },
+      {
+        revision: theirs,
+        run: () =>
+          store.remoteApplied(
+            remote(theirs, { type: 'node.update', id: 'F1', patch: { count: 5 } }),
+          ),
+      },
+    ].sort((a, b) => a.revision - b.revision)
+    for (const event of events) event.run()
+    expect(fixture(store)?.count).toBe(expected)
+    expect(store.revision).toBe(9)
+    expect(store.pendingCount).toBe(0)
+  })
+
+  test('a refused edit is rolled back with the reason, and undo forgets it', () => {
+    const { store, sent } = liveStore()
+    store.apply({ type: 'node.update', id: 'F1', patch: { count: 3 } })
+    const outcome = store.rejected({
+      diagramId: DIAGRAM,
+      clientOpId: sent[0]!.clientOpId,
+      code: 'forbidden',
+      reason: 'your role in this project is reviewer',
+    })
+    expect(outcome).toBe('rolled-back')
+    expect(fixture(store)?.count).toBe(1)
+    expect(store.saveState).toBe('saved')
+    expect(store.notice?.kind).toBe('rejected')
+    expect(store.notice?.text).toMatch(/refused and undone: your role in this project is reviewer$/)
+    expect(store.canUndo).toBe(false)
+  })
+
+  test('"too many messages" keeps the edit pending for a resend, up to a limit', () => {
+    const { store, sent } = liveStore()
     store.apply({ type: 'diagram.rename', name: 'A' })
-    await vi.advanceTimersByTimeAsync(SAVE_DEBOUNCE_MS)
-    await fake.fail('network down')
-    expect(store.saveState).toBe('failed')
-    expect(store.saveError).toBe('network down')
+    const refusal = {
+      diagramId: DIAGRAM,
+      clientOpId: sent[0]!.clientOpId,
+      code: 'limit' as const,
+      reason: 'too many messages',
+    }
+    for (let i = 0; i < MAX_TRANSIENT_RETRIES; i++) expect(store.rejected(refusal)).toBe('retry')
     expect(store.doc.name).toBe('A')
-
-    // Typing on while offline is kept and does not hammer the server.
-    store.apply({ type: 'diagram.rename', name: 'AB' })
-    await vi.advanceTimersByTimeAsync(SAVE_RETRY_MS[0] - 1)
-    expect(fake.calls).toHaveLength(1)
-    await vi.advanceTimersByTimeAsync(1)
-    expect(fake.calls).toHaveLength(2)
-    await fake.fail('still down')
-    await vi.advanceTimersByTimeAsync(SAVE_RETRY_MS[1] - 1)
-    expect(fake.calls).toHaveLength(2)
-    await vi.advanceTimersByTimeAsync(1)
-    expect(fake.calls).toHaveLength(3)
-    expect(fake.calls[2]!.doc.name).toBe('AB')
-    await fake.succeed(8)
-    expect(store.saveState).toBe('saved')
-    expect(store.saveError).toBeNull()
+    expect(store.rejected(refusal)).toBe('rolled-back')
+    expect(store.doc.name).toBe('Block A')
   })
 
-  test('retryNow saves at once instead of waiting for the backoff', async () => {
+  test('undo and redo are sent as ops too', () => {
+    const { store, sent } = liveStore()
+    store.apply({ type: 'node.remove', id: 'J2' })
+    store.undo()
+    store.redo()
+    expect(sent.map((s) => s.op.type)).toEqual(['node.remove', 'batch', 'node.remove'])
+    expect(new Set(sent.map((s) => s.clientOpId)).size).toBe(3)
+  })
+
+  test('a catch-up snapshot keeps pending edits on top; a read-only role refuses edits', () => {
     const store = openStore()
-    const fake = fakeSaver()
-    store.configureSaver(fake.saver)
+    useConnectionStore().set('offline')
+    store.apply({ type: 'node.update', id: 'F1', patch: { count: 4 } })
+    const newer = { ...sampleDiagram(), name: 'Block A, rev 20' }
+    store.caughtUp({
+      kind: 'snapshot',
+      diagramId: DIAGRAM,
+      revision: 20,
+      doc: newer,
+      role: 'reviewer',
+    })
+    expect(store.revision).toBe(20)
+    expect(store.doc.name).toBe('Block A, rev 20')
+    expect(fixture(store)?.count).toBe(4)
+    expect(store.replayable()[0]?.baseRevision).toBe(20)
+    expect(store.canEdit).toBe(false)
+    const refused = store.apply({ type: 'diagram.rename', name: 'X' })
+    expect(refused.ok).toBe(false)
+    if (!refused.ok) expect(refused.error).toMatch(/read-only/)
+  })
+
+  test('missed ops after a gap are applied in revision order, early ones wait', () => {
+    const store = openStore()
+    store.remoteApplied(remote(9, { type: 'diagram.rename', name: 'Nine' }))
+    expect(store.missingRevision).toBe(8)
+    expect(store.doc.name).toBe('Block A')
+    store.remoteApplied(remote(8, { type: 'diagram.rename', name: 'Eight' }))
+    expect(store.doc.name).toBe('Nine')
+    expect(store.missingRevision).toBeNull()
+  })
+
+  test('a past revision is shown read-only and live edits keep arriving underneath', () => {
+    const store = openStore()
+    store.showRevision(3, { ...sampleDiagram(), name: 'Old' })
+    expect(store.doc.name).toBe('Old')
+    expect(store.apply({ type: 'diagram.rename', name: 'X' }).ok).toBe(false)
+    store.remoteApplied(remote(8, { type: 'diagram.rename', name: 'Live' }))
+    store.closeRevision()
+    expect(store.doc.name).toBe('Live')
+  })
+
+  test('flush waits for the acks', async () => {
+    const { store, sent } = liveStore()
     store.apply({ type: 'diagram.rename', name: 'A' })
-    await vi.advanceTimersByTimeAsync(SAVE_DEBOUNCE_MS)
-    await fake.fail('timeout')
-    expect(store.saveState).toBe('failed')
-    const retry = store.retryNow()
-    expect(fake.calls).toHaveLength(2)
+    const flushed = store.flush()
+    store.acknowledged(ack(sent[0]!, 8))
+    expect(await flushed).toBe(true)
+  })
+
+  test('flush gives up after its timeout when the server does not answer', async () => {
+    vi.useFakeTimers()
+    const { store } = liveStore()
+    store.apply({ type: 'diagram.rename', name: 'A' })
+    const flushed = store.flush(1_000)
+    await vi.advanceTimersByTimeAsync(1_000)
+    expect(await flushed).toBe(false)
+    expect(store.doc.name).toBe('A')
+  })
+
+  test('someone else removing the selected node drops it from the selection', () => {
+    const store = openStore()
+    store.select(['F1', 'J1'])
+    store.remoteApplied(remote(8, { type: 'node.remove', id: 'F1' }))
+    expect(store.selectedNodeIds).toEqual(['J1'])
+  })
+
+  test('an answer for another diagram is ignored', () => {
+    const { store, sent } = liveStore()
+    store.apply({ type: 'diagram.rename', name: 'A' })
+    store.acknowledged({ ...ack(sent[0]!, 8), diagramId: 'd-2' })
+    store.remoteApplied({ ...remote(8, { type: 'diagram.rename', name: 'B' }), diagramId: 'd-2' })
     expect(store.saveState).toBe('saving')
-    await fake.succeed(8)
-    await retry
-    expect(store.saveState).toBe('saved')
-    // The old backoff timer was cancelled.
-    await vi.advanceTimersByTimeAsync(SAVE_RETRY_MS[0] * 2)
-    expect(fake.calls).toHaveLength(2)
-  })
-
-  test('a saver that answers without a revision counts as a failure', async () => {
-    const store = openStore()
-    store.configureSaver(() => Promise.resolve({} as { revision: number }))
-    store.apply({ type: 'diagram.rename', name: 'A' })
-    await vi.advanceTimersByTimeAsync(SAVE_DEBOUNCE_MS)
-    expect(store.saveState).toBe('failed')
-    expect(store.saveError).toMatch(/no revision/)
-  })
-
-  test('edits before a saver is configured are saved once it is', async () => {
-    const store = openStore()
-    store.apply({ type: 'diagram.rename', name: 'A' })
-    await vi.advanceTimersByTimeAsync(SAVE_DEBOUNCE_MS * 2)
-    expect(store.saveState).toBe('dirty')
-    const fake = fakeSaver()
-    store.configureSaver(fake.saver)
-    await vi.advanceTimersByTimeAsync(SAVE_DEBOUNCE_MS)
-    expect(fake.calls).toHaveLength(1)
-  })
-
-  test('flush saves pending edits now', async () => {
-    const store = openStore()
-    store.configureSaver(async (_id, _doc, revision) => ({ revision: revision + 1 }))
-    store.apply({ type: 'diagram.rename', name: 'A' })
-    expect(await store.flush()).toBe(true)
-    expect(store.revision).toBe(8)
-  })
-
-  test('an answer for a diagram no longer open is ignored', async () => {
-    const store = openStore()
-    const fake = fakeSaver()
-    store.configureSaver(fake.saver)
-    store.apply({ type: 'diagram.rename', name: 'A' })
-    await vi.advanceTimersByTimeAsync(SAVE_DEBOUNCE_MS)
-    store.load('d-2', sampleDiagram(), 3)
-    await fake.succeed(99)
-    expect(store.revision).toBe(3)
-    expect(store.saveState).toBe('saved')
+    expect(store.doc.name).toBe('A')
   })
 })
