@@ -55,7 +55,8 @@ describe('canvas mapping', () => {
   test('a new default material replaces the pipes whose results change, with new data', () => {
     const { edges, change } = mapping(fernhollowHallDiagram)
     const before = byId(edges.value)
-    const material = fernhollowHallDiagram.settings.material === 'steel-40' ? 'copper-l' : 'steel-40'
+    const material =
+      fernhollowHallDiagram.settings.material === 'steel-40' ? 'copper-l' : 'steel-40'
     change({ ...fernhollowHallDiagram, settings: { ...fernhollowHallDiagram.settings, material } })
     const replaced = edges.value.filter((edge) => before.get(edge.id) !== edge)
     expect(replaced.length).toBeGreaterThan(0)
