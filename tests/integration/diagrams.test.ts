@@ -84,6 +84,14 @@ describe('diagrams are stored in PostgreSQL with a revision', () => {
       .send({ name: 'Hot water, level 2' })
       .expect(200)
     expect(renamed.body.diagram.document.name).toBe('Hot water, level 2')
+    // A later whole-document save made on the old name does not undo the rename.
+    await editor
+      .put(`${base()}/${id}/document`)
+      .send({ baseRevision: renamed.body.diagram.revision, document: withJunction('Hot water') })
+      .expect(200)
+    const reread = await editor.get(`${base()}/${id}`).expect(200)
+    expect(reread.body.diagram.name).toBe('Hot water, level 2')
+    expect(reread.body.diagram.document.name).toBe('Hot water, level 2')
     const copy = await editor.post(`${base()}/${id}/duplicate`).expect(201)
     expect(copy.body.diagram.name).toBe('Hot water, level 2 (copy)')
     expect(copy.body.diagram.document.nodes).toHaveLength(2)

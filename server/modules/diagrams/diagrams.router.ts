@@ -57,8 +57,9 @@ export function diagramsRouter(db: Db, feed: OpFeed = createOpFeed()): Router {
 
   router.patch('/:diagramId', edit, validateBody(renameDiagramBodySchema), async (req, res) => {
     const { projectId, diagramId } = ids(req.params)
+    const author = { id: userId(req), name: req.user!.name }
     res.json({
-      diagram: await diagrams.renameDiagram(db, projectId, diagramId, userId(req), req.body.name),
+      diagram: await diagrams.renameDiagram(db, projectId, diagramId, author, req.body.name, feed),
     })
   })
 

@@ -5,6 +5,7 @@ import type {
   SaveDiagramBody,
 } from '../../../shared/api/diagrams.ts'
 import { emptyDiagram, type Diagram } from '../../../shared/document/model.ts'
+import { OPS } from '../../../shared/document/operations.ts'
 import { diffDocuments } from '../../../shared/sync/diff.ts'
 import type { Db } from '../../db/knex.ts'
 import { conflict, notFound } from '../../errors.ts'
@@ -101,7 +102,8 @@ export async function saveDocument(
     {
       clientOpId: randomUUID(),
       author,
-      op: (stored) => diffDocuments(stored, body.document),
+      // The name is changed only by a rename; a whole-document save keeps the current one.
+      op: (stored) => diffDocuments(stored, { ...body.document, name: stored.name }),
       source: 'save',
       checkRole: false,
       checkGraphRules: false,
@@ -120,15 +122,32 @@ export async function saveDocument(
   }
 }
 
+/**
+ * Renames a diagram through the operation log (a `diagram.rename` op), so every open editor sees
+ * the new name and a later edit cannot write the old one back.
+ */
 export async function renameDiagram(
   db: Db,
   projectId: string,
   id: string,
-  userId: string,
+  author: { id: string; name: string },
   name: string,
+  feed?: OpFeed,
 ): Promise<DiagramRecord> {
   await getDiagram(db, projectId, id)
-  await renameDiagramRow(db, id, name, userId)
+  const [outcome] = await commitOps(db, id, [
+    {
+      clientOpId: randomUUID(),
+      author,
+      op: () => ({ type: OPS.diagramRename, name }),
+      source: 'edit',
+      checkRole: false,
+      checkGraphRules: false,
+    },
+  ])
+  if (outcome!.kind === 'reject') throw conflict(`name: ${outcome!.reason}`)
+  if (outcome!.applied) feed?.publish(outcome!.applied)
+  await renameDiagramRow(db, id, name, author.id)
   return getDiagram(db, projectId, id)
 }
 
