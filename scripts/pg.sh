@@ -30,7 +30,11 @@ start() {
     return 0
   fi
   as_pg "$PGBIN/pg_ctl" -D "$PGDATA" -l "$LOG" -w -t 30 \
-    -o "-c listen_addresses=127.0.0.1 -p $PGPORT -k $SOCKDIR ${PGEXTRA:-}" start >/dev/null
+    -o "-c listen_addresses=127.0.0.1 -p $PGPORT -k $SOCKDIR ${PGEXTRA:-}" start >/dev/null || {
+    tail -3 "$LOG" >&2
+    echo "PostgreSQL did not start (log: $LOG). If port $PGPORT is taken, set PGPORT to a free port." >&2
+    exit 1
+  }
   echo "PostgreSQL started on 127.0.0.1:$PGPORT"
 }
 
