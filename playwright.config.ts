@@ -1,7 +1,6 @@
 import { defineConfig, devices } from '@playwright/test'
+import { CHROMIUM_ARGS, CHROMIUM_EXECUTABLE } from './e2e/chromium'
 
-// Debian's Chromium (installed by scripts/ensure-deps.sh); Playwright never downloads a browser.
-const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium'
 const port = Number(process.env.E2E_PORT ?? 3100)
 const databaseUrl =
   process.env.E2E_DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/tributary'
@@ -32,16 +31,8 @@ export default defineConfig({
         ...devices['Desktop Chrome'],
         viewport: { width: 1440, height: 900 },
         launchOptions: {
-          executablePath: chromiumPath,
-          args: [
-            '--no-sandbox',
-            '--disable-gpu',
-            '--disable-background-networking',
-            '--disable-component-update',
-            '--disable-sync',
-            '--no-first-run',
-            '--disable-quic',
-          ],
+          executablePath: CHROMIUM_EXECUTABLE,
+          args: CHROMIUM_ARGS,
         },
       },
     },

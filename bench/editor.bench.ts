@@ -12,6 +12,7 @@ import { existsSync } from 'node:fs'
 import { loadavg } from 'node:os'
 import { chromium, type BrowserContext, type Page } from '@playwright/test'
 import { editorBenchDiagram } from './editor-diagram.ts'
+import { CHROMIUM_ARGS, CHROMIUM_EXECUTABLE } from '../e2e/chromium.ts'
 
 const PORT = 3211
 const BASE = `http://127.0.0.1:${PORT}`
@@ -135,16 +136,8 @@ const server = spawn('node', ['--import', 'tsx', 'server/index.ts'], {
   stdio: 'ignore',
 })
 const browser = await chromium.launch({
-  executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-  args: [
-    '--no-sandbox',
-    '--disable-gpu',
-    '--disable-background-networking',
-    '--disable-component-update',
-    '--disable-sync',
-    '--no-first-run',
-    '--disable-quic',
-  ],
+  executablePath: CHROMIUM_EXECUTABLE,
+  args: CHROMIUM_ARGS,
 })
 let projectId = ''
 let cookie = ''

@@ -7,6 +7,7 @@
 import { spawn } from 'node:child_process'
 import { chromium } from '@playwright/test'
 import { editorBenchDiagram } from './editor-diagram.ts'
+import { CHROMIUM_ARGS, CHROMIUM_EXECUTABLE } from '../e2e/chromium.ts'
 
 /** The parts of a CDP CPU profile read here. */
 interface CallFrame {
@@ -99,8 +100,8 @@ function summarise(profile: CpuProfile) {
 }
 
 const browser = await chromium.launch({
-  executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-  args: ['--no-sandbox', '--disable-gpu'],
+  executablePath: CHROMIUM_EXECUTABLE,
+  args: CHROMIUM_ARGS,
 })
 try {
   const signUp = await api('/auth/sign-up', '', {

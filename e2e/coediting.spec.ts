@@ -1,9 +1,9 @@
 import { expect, test } from '@playwright/test'
 import { CoeditingPage } from './pages/coediting.page'
+import { copyDemoDiagram } from './demo-copy'
 
 const EDITOR = { email: 'blake@example.test', name: 'Blake Okonkwo' }
 const REVIEWER = { email: 'casey@example.test', name: 'Casey Marchetti' }
-type Named = { id: string; name: string }
 
 // The copy is deleted even when a step fails: a stray "Domestic water (copy)" would confuse the
 // journeys that open the demo by name.
@@ -20,18 +20,9 @@ test('an editor and a reviewer share one diagram: presence, live edits with new 
 
   // A copy of the demo diagram, so the other journeys keep the seeded one as it is.
   const api = blake.page.request
-  const { projects } = (await (await api.get('/api/projects')).json()) as { projects: Named[] }
-  const projectId = projects.find((p) => p.name === 'Fernhollow Community Hall')!.id
-  const { diagrams } = (await (await api.get(`/api/projects/${projectId}/diagrams`)).json()) as {
-    diagrams: Named[]
-  }
-  const demoId = diagrams.find((d) => d.name === 'Domestic water')!.id
-  const copy = await api.post(`/api/projects/${projectId}/diagrams/${demoId}/duplicate`)
-  expect(copy.ok()).toBe(true)
-  const diagramId = ((await copy.json()) as { diagram: Named }).diagram.id
-  const path = `/projects/${projectId}/diagrams/${diagramId}`
+  const { path, remove } = await copyDemoDiagram(api)
   cleanup.push(async () => {
-    await api.delete(`/api/projects/${projectId}/diagrams/${diagramId}`)
+    await remove()
     await blake.close()
     await casey.close()
   })

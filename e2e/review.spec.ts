@@ -1,6 +1,7 @@
 import { expect, test } from '@playwright/test'
 import { ReviewPage } from './pages/review.page'
 import { DEMO_PASSWORD } from './pages/sign-in.page'
+import { copyDemoDiagram } from './demo-copy'
 
 const EDITOR = 'blake@example.test'
 const REVIEWER = 'casey@example.test'
@@ -19,18 +20,9 @@ test('a reviewer pins a comment on a pipe, the designer sees it live and resolve
 
   // A copy of the demo diagram, so other journeys keep the seeded one as it is.
   const api = blake.page.request
-  const { projects } = (await (await api.get('/api/projects')).json()) as { projects: Named[] }
-  const projectId = projects.find((p) => p.name === 'Fernhollow Community Hall')!.id
-  const { diagrams } = (await (await api.get(`/api/projects/${projectId}/diagrams`)).json()) as {
-    diagrams: Named[]
-  }
-  const demoId = diagrams.find((d) => d.name === 'Domestic water')!.id
-  const copy = await api.post(`/api/projects/${projectId}/diagrams/${demoId}/duplicate`)
-  expect(copy.ok()).toBe(true)
-  const diagramId = ((await copy.json()) as { diagram: Named }).diagram.id
-  const path = `/projects/${projectId}/diagrams/${diagramId}`
+  const { path, remove } = await copyDemoDiagram(api)
   cleanup.push(async () => {
-    await api.delete(`/api/projects/${projectId}/diagrams/${diagramId}`)
+    await remove()
     await blake.close()
     await casey.close()
   })

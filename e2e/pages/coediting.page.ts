@@ -1,16 +1,11 @@
 import { expect, type Browser, type Page } from '@playwright/test'
 import { EditorPage } from './editor.page'
-import { SignInPage } from './sign-in.page'
+import { signedInPage } from './sign-in.page'
 
 /** One person in a co-editing session: their own browser context on the editor. */
 export class CoeditingPage extends EditorPage {
   static async signedIn(browser: Browser, email: string): Promise<CoeditingPage> {
-    const context = await browser.newContext({ viewport: { width: 1440, height: 900 } })
-    const page = await context.newPage()
-    await new SignInPage(page).goto()
-    await new SignInPage(page).signIn(email)
-    await expect(page.getByTestId('project-list')).toBeVisible()
-    return new CoeditingPage(page)
+    return new CoeditingPage(await signedInPage(browser, email))
   }
 
   constructor(page: Page) {
@@ -19,10 +14,7 @@ export class CoeditingPage extends EditorPage {
 
   /** Opens the editor at its URL and waits until the live link is up. */
   async open(path: string) {
-    await this.page.goto(path)
-    await expect(this.page.getByTestId('riser-canvas')).toBeVisible()
-    await expect(this.page.locator('.vue-flow__edge').first()).toBeAttached()
-    await this.page.getByTestId('fit-view').click()
+    await this.openAt(path)
   }
 
   avatar(name: string) {

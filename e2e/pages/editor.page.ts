@@ -12,6 +12,14 @@ export class EditorPage {
     await expect(this.page.locator('.vue-flow__edge').first()).toBeAttached()
   }
 
+  /** Opens the editor at its URL and fits the whole diagram in view. */
+  async openAt(path: string) {
+    await this.page.goto(path)
+    await expect(this.page.getByTestId('riser-canvas')).toBeVisible()
+    await expect(this.page.locator('.vue-flow__edge').first()).toBeAttached()
+    await this.page.getByTestId('fit-view').click()
+  }
+
   node(id: string): Locator {
     return this.page.locator(`.vue-flow__node[data-id="${id}"]`)
   }

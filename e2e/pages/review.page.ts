@@ -1,16 +1,11 @@
 import { expect, type Browser, type Page } from '@playwright/test'
 import { EditorPage } from './editor.page'
-import { SignInPage } from './sign-in.page'
+import { signedInPage } from './sign-in.page'
 
 /** One person reviewing a diagram: comments side tab, pins on the canvas, the review bar. */
 export class ReviewPage extends EditorPage {
   static async signedIn(browser: Browser, email: string): Promise<ReviewPage> {
-    const context = await browser.newContext({ viewport: { width: 1440, height: 900 } })
-    const page = await context.newPage()
-    await new SignInPage(page).goto()
-    await new SignInPage(page).signIn(email)
-    await expect(page.getByTestId('project-list')).toBeVisible()
-    return new ReviewPage(page)
+    return new ReviewPage(await signedInPage(browser, email))
   }
 
   constructor(page: Page) {
@@ -18,10 +13,7 @@ export class ReviewPage extends EditorPage {
   }
 
   async open(path: string) {
-    await this.page.goto(path)
-    await expect(this.page.getByTestId('riser-canvas')).toBeVisible()
-    await expect(this.page.locator('.vue-flow__edge').first()).toBeAttached()
-    await this.page.getByTestId('fit-view').click()
+    await this.openAt(path)
     await expect(this.status()).not.toHaveText('Review status loading')
   }
 

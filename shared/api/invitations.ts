@@ -1,6 +1,7 @@
 /** Following an invitation link: shapes of /api/invitations. */
 import { z } from 'zod'
 import { projectRoleSchema } from '../auth/roles.ts'
+import { signUpBodySchema } from './schemas.ts'
 
 /** Tokens are 32 random bytes in base64url (43 characters). */
 export const tokenSchema = z
@@ -23,14 +24,10 @@ export type InvitationPreview = z.infer<typeof invitationPreviewSchema>
 export const invitationPreviewBodySchema = z.object({ invitation: invitationPreviewSchema })
 
 export const acceptInvitationBodySchema = z.object({ token: tokenSchema })
-export const invitationSignUpBodySchema = z.object({
-  token: tokenSchema,
-  name: z.string().trim().min(1, 'is required').max(80, 'must be at most 80 characters'),
-  password: z
-    .string()
-    .min(10, 'must be at least 10 characters')
-    .max(200, 'must be at most 200 characters'),
-})
+// The same name and password rules as an ordinary sign-up; the e-mail comes from the invitation.
+export const invitationSignUpBodySchema = signUpBodySchema
+  .pick({ name: true, password: true })
+  .extend({ token: tokenSchema })
 export type InvitationSignUpBody = z.infer<typeof invitationSignUpBodySchema>
 export const acceptedInvitationBodySchema = z.object({
   projectId: z.string(),

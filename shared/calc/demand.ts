@@ -35,9 +35,14 @@ export function readDemand(column: DemandPoint[], load: number): DemandReading {
     const gpm = last.gpm + ((load - last.load) * (last.gpm - prev.gpm)) / (last.load - prev.load)
     return { gpm, lps: gpm * GPM_TO_LPS, range: 'beyond-last-row' }
   }
-  // Binary search for the segment [lo, lo + 1] holding the load.
+  const gpm = interpolateGpm(column, load)
+  return { gpm, lps: gpm * GPM_TO_LPS, range: 'interpolated' }
+}
+
+/** Linear interpolation inside the table: binary search for the segment holding `load`. */
+function interpolateGpm(column: DemandPoint[], load: number): number {
   let lo = 0
-  let hi = n - 1
+  let hi = column.length - 1
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1
     if (column[mid]!.load <= load) lo = mid
@@ -45,9 +50,7 @@ export function readDemand(column: DemandPoint[], load: number): DemandReading {
   }
   const a = column[lo]!
   const b = column[hi]!
-  const gpm =
-    load === a.load ? a.gpm : a.gpm + ((load - a.load) * (b.gpm - a.gpm)) / (b.load - a.load)
-  return { gpm, lps: gpm * GPM_TO_LPS, range: 'interpolated' }
+  return load === a.load ? a.gpm : a.gpm + ((load - a.load) * (b.gpm - a.gpm)) / (b.load - a.load)
 }
 
 /** Probable flow in L/s, as readDemand but without allocating (the engine's hot path). */
@@ -56,16 +59,5 @@ export function demandLps(column: DemandPoint[], load: number): number {
   const n = column.length
   const first = column[0]!
   if (load <= first.load || load >= column[n - 1]!.load) return readDemand(column, load).lps
-  let lo = 0
-  let hi = n - 1
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1
-    if (column[mid]!.load <= load) lo = mid
-    else hi = mid
-  }
-  const a = column[lo]!
-  const b = column[hi]!
-  const gpm =
-    load === a.load ? a.gpm : a.gpm + ((load - a.load) * (b.gpm - a.gpm)) / (b.load - a.load)
-  return gpm * GPM_TO_LPS
+  return interpolateGpm(column, load) * GPM_TO_LPS
 }
