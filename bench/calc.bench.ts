@@ -2,6 +2,8 @@
  * Calculation benchmark: `npm run bench`. On generated riser trees of 1,000, 10,000 and 100,000
  * nodes it times (medians):
  * - floor: a typed-array post-order sum of one load per node over the same tree;
+ * - full/floor: floor and full recompute are timed in alternation, the ratio is the median of
+ *   the pairs' ratios (a noisy machine slows both alike);
  * - compile: validation, graph compile (pre-order renumbering) and reading every node and pipe
  *   into the engine's arrays — what a new document costs before any number is computed;
  * - full recompute: sums, sizes, pressures and the budget check on the compiled state (after a
@@ -23,7 +25,11 @@ function median(xs: number[]): number {
   return s[s.length >> 1]!
 }
 
+// Runs `fn` until it has had 300 ms or 400 calls to warm up (the editor recomputes on every
+// edit, so the steady state is what users meet), then times `reps` calls.
 function time(fn: () => void, reps: number): number {
+  const until = performance.now() + 300
+  for (let i = 0; i < 400 && performance.now() < until; i++) fn()
   const xs: number[] = []
   for (let i = 0; i < reps; i++) {
     const t = performance.now()
@@ -31,6 +37,34 @@ function time(fn: () => void, reps: number): number {
     xs.push(performance.now() - t)
   }
   return median(xs)
+}
+
+/**
+ * Times `floor` and `full` in alternation, so that both meet the same machine (a shared or
+ * throttled processor slows both alike): each pair is one `full` call and `batch` floor calls.
+ * Returns the medians and the median of the pairs' ratios.
+ */
+function paired(floor: () => void, full: () => void, pairs: number, batch: number) {
+  const until = performance.now() + 300
+  for (let i = 0; i < 400 && performance.now() < until; i++) {
+    floor()
+    full()
+  }
+  const floors: number[] = []
+  const fulls: number[] = []
+  const ratios: number[] = []
+  for (let i = 0; i < pairs; i++) {
+    let t = performance.now()
+    for (let b = 0; b < batch; b++) floor()
+    const f = (performance.now() - t) / batch
+    t = performance.now()
+    full()
+    const u = performance.now() - t
+    floors.push(f)
+    fulls.push(u)
+    ratios.push(u / f)
+  }
+  return { floorMs: median(floors), fullMs: median(fulls), ratio: median(ratios) }
 }
 
 // The floor: parent links in pre-order, one reverse pass adding each node's load to its parent.
@@ -73,12 +107,11 @@ for (const target of [1_000, 10_000, 100_000]) {
   const doc = riserTreeDiagram(target)
   const reps = target >= 100_000 ? 7 : 25
   const floor = floorSum(doc)
-  const floorMs = time(floor, reps * 4)
   const copy = () => ({ ...doc, nodes: doc.nodes.slice(), pipes: doc.pipes.slice() })
   const compileMs = time(() => new Engine(copy(), false), target >= 100_000 ? 3 : 7)
   const engine = new Engine(copy())
-  for (let i = 0; i < 10; i++) engine.recomputeAll()
-  const fullMs = time(() => engine.recomputeAll(), reps)
+  const pairs = target >= 100_000 ? 40 : 300
+  const { floorMs, fullMs, ratio } = paired(floor, () => engine.recomputeAll(), pairs, 8)
   // Warm the JIT first: the editor calls computeDiagram on every edit.
   if (target < 100_000) for (let i = 0; i < 20; i++) computeDiagram(doc)
   const computeMs = time(() => computeDiagram(doc), target >= 100_000 ? 3 : 15)
@@ -108,7 +141,7 @@ for (const target of [1_000, 10_000, 100_000]) {
       fmt(floorMs).padStart(10),
       fmt(compileMs).padStart(10),
       fmt(fullMs).padStart(10),
-      `${(fullMs / floorMs).toFixed(1)}×`.padStart(10),
+      `${ratio.toFixed(1)}×`.padStart(10),
       fmt(computeMs).padStart(15),
       fmt(incMs).padStart(12),
       ' ' +

@@ -9,6 +9,13 @@
 import type { Diagram, DiagramNode, Pipe } from '../document/model.ts'
 import { contributionOf, type Contribution } from './contributions.ts'
 import { compileColumn, type DemandColumn } from './demand-lookup.ts'
+import {
+  createDemandMemo,
+  MEMO_ROWS,
+  MEMO_SIZES,
+  sizingClass,
+  type DemandMemo,
+} from './demand-memo.ts'
 import { DEMAND_TABLES, IPC_DEMAND_TABLE } from './demand-tables.ts'
 import { FIXTURES } from './fixtures.ts'
 import { waterProperties } from './friction.ts'
@@ -16,7 +23,8 @@ import { compileGraph, type CompiledGraph } from './graph.ts'
 import { hydraulicsAt, recomputeAll } from './hydraulics.ts'
 import { MarginTree } from './margin-tree.ts'
 import { sizeAtLeast, sizeIndex, type Material } from './materials.ts'
-import { budget, nodeOut, pressurePass } from './pressures.ts'
+import { AFTER_DEVICE, CLASS, FIN, FLAGS, FLOW, FOUT, IOUT, LEQ, REQ, RISE } from './pipe-record.ts'
+import { budget, nodeOut, pressurePass, staticPass } from './pressures.ts'
 import { capacities, SIZE_TABLES } from './size-tables.ts'
 import type { CalcIssue } from './types.ts'
 import { KPA_PER_METRE } from './units.ts'
@@ -35,6 +43,13 @@ const COLUMNS = [
   compileColumn(TABLE.columns['flush-tank']),
   compileColumn(TABLE.columns['flush-valve']),
 ]
+// Capacity rows of both systems and every material's sizes must fit a sizing class.
+if (
+  2 * SIZE_TABLES.area.length >= MEMO_ROWS ||
+  SIZE_TABLES.materials.some((m) => m.sizes.length >= MEMO_SIZES)
+) {
+  throw new Error('too many sizes for the demand memo')
+}
 
 /** Engine state; see the file comment. Fields are public for the pass modules. */
 export class Engine {
@@ -51,9 +66,13 @@ export class Engine {
   readonly columns: DemandColumn[] = COLUMNS
   readonly series: boolean
   readonly darcy: boolean
-  /** Flow capacity of every flat size at the cold and hot velocity limits, L/s. */
-  readonly capCold: Float64Array
-  readonly capHot: Float64Array
+  /**
+   * Flow capacity, L/s, of every flat size at the cold velocity limit, then of every flat size
+   * at the hot limit: a pipe's sizes start at capStart.
+   */
+  readonly capacity: Float64Array
+  /** Per engine: load → flow, flow term and velocity size (demand-memo.ts). */
+  readonly memo: DemandMemo
   /** Water viscosity (m²/s) and density (kg/m³) in cold and hot pipes, for Darcy-Weisbach. */
   readonly water: { cold: { nu: number; rho: number }; hot: { nu: number; rho: number } }
 
@@ -68,19 +87,18 @@ export class Engine {
   readonly material: (Material | null)[]
   /** Flat index (size-tables.ts) of the material's first size, or -1. */
   readonly matStart: Int32Array
+  /** Index in `capacity` of the material's first size in the pipe's system, or -1. */
+  readonly capStart: Int32Array
   readonly matCount: Int32Array
   readonly locked: Int32Array
   /** Smallest size index allowed by the fixture the pipe supplies (0 when none). */
   readonly minSize: Int32Array
   readonly invalid: Uint8Array
-  readonly leq: Float64Array
-  /** Static head change over the pipe, kPa (9.81 kPa per metre of rise). */
-  readonly riseKPa: Float64Array
-  // Per pipe: copies of node values, so the pressure sweep reads front to back: the cap and
-  // device loss of the node the pipe leaves, the required pressure of the node it feeds.
-  readonly inCap: Float64Array
-  readonly inLoss: Float64Array
-  readonly outReq: Float64Array
+  /**
+   * Float inputs of the sweep, interleaved (pipe-record.ts): equivalent length, rise, and a copy
+   * of the required pressure of the node the pipe feeds, so the sweep reads front to back.
+   */
+  readonly fin: Float64Array
   // Per pipe: own contribution of the node it feeds (loads in milli-WSFU), then subtree sums.
   readonly oLoad: Float64Array
   readonly oWC: Float64Array
@@ -95,32 +113,21 @@ export class Engine {
   /** Set once any node has flush valves / equipment flow: until then those sums stay zero. */
   valvesOn = false
   equipmentOn = false
-  // Per pipe: results.
-  readonly load: Float64Array
-  readonly flushValve: Uint8Array
-  readonly beyondTable: Uint8Array
+  // Per pipe: results, interleaved (pipe-record.ts): loads, flows, losses, pressures, margins
+  // in `fo`; sizing class, budget enlargement, size and flags in `io`.
+  readonly fo: Float64Array
+  readonly io: Int32Array
+  /** Probable flow of the fixtures alone, L/s: written once some equipment has a flow. */
   readonly fixtureFlow: Float64Array
-  readonly flow: Float64Array
-  /** flow^1.852 with flow in m³/s, for Hazen-Williams at whatever size the pipe ends up. */
-  readonly flowPow: Float64Array
-  /** Smallest size within the velocity limit (-1: none), before any fixture minimum. */
-  readonly velSize: Int32Array
-  readonly base: Int32Array
-  readonly up: Int32Array
-  readonly size: Int32Array
-  readonly velocity: Float64Array
-  readonly friction: Float64Array
-  readonly drop: Float64Array
-  readonly outP: Float64Array
-  readonly known: Uint8Array
+  /** Static pressure at each pipe outlet, kPa (pressures.ts staticPass). */
   readonly staticOut: Float64Array
-  readonly givenUp: Uint8Array
   readonly tree: MarginTree
-  readonly leaves: Float64Array
   upsized: number[] = []
   givenUpCount = 0
   unsizedCount = 0
-  /** True when outP/known lag behind an incremental edit (the margin tree is current). */
+  /** Pipes without a fitting size met by the last sweep (hydraulics.ts). */
+  sweepUnsized = 0
+  /** True when residual pressures lag behind an incremental edit (the margin tree is current). */
   stale = false
   readonly stamp: Int32Array
   stampNo = 0
@@ -139,8 +146,10 @@ export class Engine {
     const s = doc.settings
     this.series = s.loadBasis === 'flush-valve-series'
     this.darcy = s.frictionMethod === 'darcy-weisbach'
-    this.capCold = capacities(this.sizes, s.velocityLimits.cold)
-    this.capHot = capacities(this.sizes, s.velocityLimits.hot)
+    const capCold = capacities(this.sizes, s.velocityLimits.cold)
+    this.capacity = new Float64Array(2 * capCold.length)
+    this.capacity.set(capCold)
+    this.capacity.set(capacities(this.sizes, s.velocityLimits.hot), capCold.length)
     this.water = { cold: waterProperties(s.waterTempC), hot: waterProperties(HOT_WATER_TEMP_C) }
     const nN = ok ? doc.nodes.length : 0
     const nP = ok ? doc.pipes.length : 0
@@ -153,34 +162,25 @@ export class Engine {
     this.prvIn = new Float64Array(nN)
     this.material = new Array<Material | null>(nP).fill(null)
     this.matStart = i32().fill(-1)
+    this.capStart = i32().fill(-1)
     this.matCount = i32()
     this.locked = i32().fill(-1)
     this.minSize = i32()
     this.invalid = new Uint8Array(nP)
-    this.leq = f64()
-    this.riseKPa = f64()
-    this.inCap = f64()
-    this.inLoss = f64()
-    this.outReq = f64()
+    this.fin = new Float64Array(nP * FIN)
     ;[this.oLoad, this.oWC, this.oU, this.oFV, this.oEq] = [f64(), f64(), f64(), f64(), f64()]
     ;[this.sLoad, this.sWC, this.sU, this.sFV, this.sEq] = [f64(), f64(), f64(), f64(), f64()]
-    this.load = f64()
-    this.flushValve = new Uint8Array(nP)
-    this.beyondTable = new Uint8Array(nP)
+    this.fo = new Float64Array(nP * FOUT)
+    this.io = new Int32Array(nP * IOUT)
     this.fixtureFlow = f64()
-    this.flow = f64()
-    this.flowPow = f64()
-    ;[this.velSize, this.base, this.up, this.size] = [i32(), i32(), i32(), i32()]
-    ;[this.velocity, this.friction, this.drop, this.outP] = [f64(), f64(), f64(), f64()]
-    this.known = new Uint8Array(nP)
     this.staticOut = f64()
-    this.givenUp = new Uint8Array(nP)
     this.tree = new MarginTree(nP)
-    this.leaves = f64()
     this.stamp = i32()
+    this.memo = createDemandMemo(nP)
     if (!ok) return
     for (let i = 0; i < nN; i++) this.readNode(i)
     for (let q = 0; q < nP; q++) this.readPipe(q)
+    staticPass(this)
     if (compute) this.recomputeAll()
   }
 
@@ -196,18 +196,25 @@ export class Engine {
       k === 'meter' || k === 'backflow-preventer' || k === 'water-heater' ? node.lossKPa : 0
     this.cap[i] = k === 'pressure-reducing-valve' ? node.setKPa : Infinity
     const { outStart, outPipes } = this.g
+    const device = this.cap[i] !== Infinity || this.devLoss[i] !== 0 ? AFTER_DEVICE : 0
     for (let j = outStart[i]!; j < outStart[i + 1]!; j++) {
-      this.inCap[outPipes[j]!] = this.cap[i]!
-      this.inLoss[outPipes[j]!] = this.devLoss[i]!
+      const f = outPipes[j]! * IOUT + FLAGS
+      this.io[f] = (this.io[f]! & ~AFTER_DEVICE) | device
     }
     const qc = this.g.inCold[i]!
     const qh = this.g.inHot[i]!
-    if (qc >= 0) this.outReq[qc] = c.requiredKPa
-    if (qh >= 0) this.outReq[qh] = c.requiredKPa
+    // -Infinity where nothing is required, so that the margin is +Infinity without a test.
+    const req = c.requiredKPa === c.requiredKPa ? c.requiredKPa : -Infinity
+    if (qc >= 0) this.fin[qc * FIN + REQ] = req
+    if (qh >= 0) this.fin[qh * FIN + REQ] = req
     const inlet = qc >= 0 ? qc : qh
     if (k === 'equipment' && inlet >= 0) {
       this.oEq[inlet] = c.flow
-      if (c.flow !== 0) this.equipmentOn = true
+      if (c.flow !== 0 && !this.equipmentOn) {
+        // Until now fixture flow equalled flow and was not stored (hydraulics.ts).
+        this.equipmentOn = true
+        for (let q = 0; q < this.g.pipeCount; q++) this.fixtureFlow[q] = this.fo[q * FOUT + FLOW]!
+      }
     }
     if (k !== 'fixture') return
     if (qc >= 0) {
@@ -217,10 +224,12 @@ export class Engine {
       this.oFV[qc] = c.otherValves
       if (c.closets + c.urinals + c.otherValves > 0) this.valvesOn = true
       this.minSize[qc] = this.fixtureMinimum(qc)
+      this.classify(qc)
     }
     if (qh >= 0) {
       this.oLoad[qh] = c.hot
       this.minSize[qh] = this.fixtureMinimum(qh)
+      this.classify(qh)
     }
     // Several fixtures may merge at one pipe: take back this node's previous share first.
     const l = this.g.lca[i]!
@@ -236,17 +245,28 @@ export class Engine {
     const m = mi === undefined ? null : this.sizes.materials[mi]!
     this.material[q] = m
     this.matStart[q] = mi === undefined ? -1 : this.sizes.start[mi]!
+    const hotRows = this.g.hot[q] ? this.sizes.area.length : 0
+    this.capStart[q] = mi === undefined ? -1 : this.sizes.start[mi]! + hotRows
     this.matCount[q] = mi === undefined ? 0 : this.sizes.count[mi]!
     const lockedIdx = m && pipe.nominal !== undefined ? sizeIndex(m, pipe.nominal) : -1
     this.locked[q] = lockedIdx
     const badSize = pipe.nominal !== undefined && lockedIdx < 0
     const badLength = !(Number.isFinite(pipe.lengthM) && pipe.lengthM > 0)
     this.invalid[q] = !m || badSize || badLength ? 1 : 0
-    this.leq[q] = badLength ? 0 : pipe.lengthM * (1 + this.doc.settings.fittingAllowance)
+    this.fin[q * FIN + LEQ] = badLength
+      ? 0
+      : pipe.lengthM * (1 + this.doc.settings.fittingAllowance)
     const nodes = this.doc.nodes
     const rise = nodes[this.g.to[q]!]!.elevationM - nodes[this.g.from[q]!]!.elevationM
-    this.riseKPa[q] = KPA_PER_METRE * rise
+    this.fin[q * FIN + RISE] = KPA_PER_METRE * rise
     this.minSize[q] = this.fixtureMinimum(q)
+    this.classify(q)
+  }
+
+  /** Pipe q's sizing class from its capacity row, locked size and fixture minimum. */
+  classify(q: number): void {
+    const row = this.invalid[q] ? -1 : this.capStart[q]!
+    this.io[q * IOUT + CLASS] = sizingClass(row, this.locked[q]!, this.minSize[q]!)
   }
 
   /** Size index of the minimum supply of the fixture pipe q feeds (0 when it feeds none). */
@@ -305,7 +325,7 @@ export class Engine {
     return updatePipe(this, q, pipe)
   }
 
-  /** Brings outP/known up to date after incremental edits. */
+  /** Brings residual pressures up to date after incremental edits. */
   refreshPressures(): void {
     if (this.stale) pressurePass(this)
   }

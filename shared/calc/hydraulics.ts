@@ -1,18 +1,48 @@
 /**
  * The sizing loop: fixture-unit sums up the pipe forest, then per pipe the load (with the flush
  * valve series), the demand flow, the size (velocity, then the fixture's minimum supply size),
- * velocity, friction and pressure drop. hydraulicsAt is the one per-pipe step; the full recompute
- * and the live updates both use it, so they agree to the last bit.
+ * friction and pressure drop, and — in the same forward sweep — the residual pressure at its
+ * outlet. (Static pressures do not depend on flow: pressures.ts computes them when the graph,
+ * an elevation or a set pressure changes.) `sweep` is the one per-pipe step: the full recompute, the live updates and the
+ * pressure budget all run it, so they agree to the last bit.
  *
  * Speed (bench/calc.bench.ts): pipes are numbered in pre-order (graph.ts), so the sums are one
- * backward sweep and sizes and pressures one forward sweep over typed arrays; demand is a table
- * read (demand-lookup.ts), sizing compares against precomputed capacities, and friction costs one
- * Math.pow per pipe. No closures in these loops.
+ * backward sweep and sizes and pressures one forward sweep over typed arrays, read into locals
+ * once per sweep. The load-only part (flow, flow^1.852, velocity size) comes from a memo
+ * (demand-memo.ts). No closures or object allocations in these loops.
  */
 import { columnLps } from './demand-lookup.ts'
+import {
+  M_BASE,
+  M_KEY,
+  M_LPS,
+  M_PER_M,
+  M_POW,
+  MEMO_STRIDE,
+  memoKey,
+  memoSlot,
+} from './demand-memo.ts'
 import type { Engine } from './engine.ts'
 import { darcyLossKPa } from './friction.ts'
-import { budgetRounds, pressureAt, leafValue, updatePrvInlets } from './pressures.ts'
+import {
+  AFTER_DEVICE,
+  CLASS,
+  FIN,
+  FLAGS,
+  FLOW,
+  FOUT,
+  FRICTION,
+  GIVEN_UP,
+  IOUT,
+  LEQ,
+  OUT_P,
+  REQ,
+  RISE,
+  SIZE,
+  UP,
+  VALVE_CURVE,
+} from './pipe-record.ts'
+import { budgetRounds, clearBudget, deferMargins, updatePrvInlets } from './pressures.ts'
 import { SERIES_TOTALS, seriesFromTotals, FLUSH_VALVE_SERIES } from './series.ts'
 import { FLOW_SCALE, LOAD_SCALE } from './units.ts'
 
@@ -22,129 +52,240 @@ const CLOSET_THEN = FLUSH_VALVE_SERIES.closet.then
 const URINAL_THEN = FLUSH_VALVE_SERIES.urinal.then
 const HW_EXPONENT = 1.852 // Hazen-Williams flow exponent, C* [S41]
 
-// Direct-mapped memo per demand column, shared by all engines (the columns are constants):
-// 4096 slots; a riser diagram repeats the same branch loads floor after floor.
-const MEMO_SHIFT = 20
-const MEMO = [0, 1].map(() => ({
-  load: new Float64Array(1 << (32 - MEMO_SHIFT)).fill(NaN),
-  lps: new Float64Array(1 << (32 - MEMO_SHIFT)),
-  pow: new Float64Array(1 << (32 - MEMO_SHIFT)),
-}))
-
-/** Load, flow, size and friction of pipe q from its sums. */
-export function hydraulicsAt(e: Engine, q: number): void {
-  let load = e.sLoad[q]! / LOAD_SCALE
-  let fv = 0
-  if (e.valvesOn) {
-    if (e.series) {
-      load +=
-        seriesFromTotals(CLOSETS, CLOSET_THEN, e.sWC[q]!) +
-        seriesFromTotals(URINALS, URINAL_THEN, e.sU[q]!)
-    }
-    fv = e.sWC[q]! + e.sU[q]! + e.sFV[q]! > 0 ? 1 : 0
-  }
-  const column = e.columns[fv]!
-  // Memo of the pure load → (flow, flow^1.852) step; keys are compared exactly, so a hit returns
-  // the very numbers a miss would compute.
-  const memo = MEMO[fv]!
-  const h = Math.imul((load * 1000) | 0, 0x9e3779b1) >>> MEMO_SHIFT
-  let lps: number
-  let pw: number
-  if (memo.load[h] === load) {
-    lps = memo.lps[h]!
-    pw = memo.pow[h]!
-  } else {
-    lps = columnLps(column, load)
-    pw = Math.pow(lps / 1000, HW_EXPONENT)
-    memo.load[h] = load
-    memo.lps[h] = lps
-    memo.pow[h] = pw
-  }
-  let flow = lps
-  if (e.equipmentOn) {
-    const eq = e.sEq[q]!
-    if (eq !== 0) {
-      flow = lps + eq / FLOW_SCALE
-      pw = Math.pow(flow / 1000, HW_EXPONENT)
-    }
-  }
-  e.load[q] = load
-  e.flushValve[q] = fv
-  e.beyondTable[q] = load > column.load[column.load.length - 1]! ? 1 : 0
-  e.fixtureFlow[q] = lps
-  e.flow[q] = flow
-  const start = e.matStart[q]!
-  if (e.invalid[q] || start < 0) {
-    e.velSize[q] = -1
-    e.base[q] = -1
-    e.size[q] = -1
-  } else {
-    const n = e.matCount[q]!
-    let b = e.locked[q]!
-    let v = b
-    if (b < 0) {
-      const cap = e.g.hot[q] ? e.capHot : e.capCold
-      b = 0
-      while (b < n && flow > cap[start + b]!) b++
-      if (b === n) b = -1
-      v = b
-      // The fixture's minimum supply size (fixtures.ts) raises a smaller velocity size.
-      if (b >= 0 && b < e.minSize[q]!) b = e.minSize[q]!
-    }
-    e.velSize[q] = v
-    e.base[q] = b
-    e.size[q] = b < 0 ? -1 : Math.min(b + e.up[q]!, n - 1)
-  }
-  e.flowPow[q] = pw
-  sizeHydraulics(e, q)
+/** The Hazen-Williams flow term: (flow in m³/s)^1.852. */
+export function hwFlowTerm(lps: number): number {
+  return Math.pow(lps / 1000, HW_EXPONENT)
 }
 
-/** Velocity, friction and pressure drop of pipe q at its current size. */
-export function sizeHydraulics(e: Engine, q: number): void {
-  const s = e.size[q]!
-  const flow = e.flow[q]!
-  let fr = 0
-  if (s >= 0) {
-    const k = e.matStart[q]! + s
-    const t = e.sizes
-    e.velocity[q] = flow / 1000 / t.area[k]!
-    if (flow > 0) {
-      if (e.darcy) {
-        const w = e.g.hot[q] ? e.water.hot : e.water.cold
-        fr = darcyLossKPa(flow, t.idMm[k]!, e.leq[q]!, t.roughnessMm[k]!, w.nu, w.rho)
+/**
+ * Smallest size index of pipe q's material whose capacity at the system's velocity limit holds
+ * `lps`, or -1 (none fits, or the pipe has no valid material).
+ */
+export function velocitySize(e: Engine, q: number, lps: number): number {
+  const row = e.capStart[q]!
+  if (row < 0 || e.invalid[q]) return -1
+  const n = e.matCount[q]!
+  const cap = e.capacity
+  let b = 0
+  while (b < n && lps > cap[row + b]!) b++
+  return b === n ? -1 : b
+}
+
+/**
+ * Pipe q's size before any pressure budget enlargement, from its velocity size: the locked
+ * size, else the velocity size raised to the fixture's minimum supply size (fixtures.ts).
+ */
+export function baseSize(e: Engine, q: number, velSize: number): number {
+  if (e.capStart[q]! < 0 || e.invalid[q]) return -1
+  const locked = e.locked[q]!
+  if (locked >= 0) return locked
+  const min = e.minSize[q]!
+  return velSize >= 0 && velSize < min ? min : velSize
+}
+
+/** Fixture units the flush valve series adds for `closets` and `urinals` valves on one pipe. */
+function seriesUnits(closets: number, urinals: number): number {
+  return (
+    seriesFromTotals(CLOSETS, CLOSET_THEN, closets) +
+    seriesFromTotals(URINALS, URINAL_THEN, urinals)
+  )
+}
+
+/** Load on pipe q, WSFU: its fixture-unit sum plus, on that basis, the flush valve series. */
+export function loadAt(e: Engine, q: number): number {
+  let milli = e.sLoad[q]!
+  if (e.valvesOn && e.series) milli += seriesUnits(e.sWC[q]!, e.sU[q]!) * LOAD_SCALE
+  return milli / LOAD_SCALE
+}
+
+/** Hazen-Williams friction per metre of equivalent length of pipe q at size s, kPa/m. */
+function perMetre(e: Engine, q: number, s: number, pw: number): number {
+  return s >= 0 ? e.sizes.hw[e.matStart[q]! + s]! * pw : 0
+}
+
+// The sweep indexes the interleaved records with number literals (commented with the field's
+// name): V8 does not fold imported constants, and reading them cost half the sweep's time.
+// This check ties the literals to the layout in pipe-record.ts and demand-memo.ts.
+// prettier-ignore
+const LAYOUT: [number, number][] = [
+  [FIN, 3], [LEQ, 0], [RISE, 1], [REQ, 2],
+  [FOUT, 3], [FLOW, 0], [FRICTION, 1], [OUT_P, 2],
+  [IOUT, 4], [CLASS, 0], [UP, 1], [SIZE, 2], [FLAGS, 3],
+  [GIVEN_UP, 1], [VALVE_CURVE, 2], [AFTER_DEVICE, 4],
+  [MEMO_STRIDE, 5], [M_KEY, 0], [M_LPS, 1], [M_POW, 2], [M_BASE, 3], [M_PER_M, 4],
+]
+if (LAYOUT.some(([field, literal]) => field !== literal)) throw new Error('sweep layout mismatch')
+
+// NaN, the unknown pressure, read from memory: with a NaN literal in the loop V8 compiled the
+// pressure part to twice the time.
+const UNKNOWN = new Float64Array([NaN])
+
+/** Sweep parts (bit flags): sizes and losses; pressures and margins. */
+export const HYDRAULICS = 1
+export const PRESSURES = 2
+
+/**
+ * One forward pass over pipes [lo, hi) in pre-order. HYDRAULICS: load, flow, size, friction and
+ * drop of each pipe from its sums. PRESSURES: residual pressure at each outlet from its parent's
+ * (so the parent must be current; NaN when unknown) and its margin (residual − required,
+ * +Infinity where nothing is checked). Returns the smallest margin met (+Infinity without PRESSURES)
+ * and leaves the count of valid pipes that no size fits in `e.sweepUnsized`.
+ */
+export function sweep(e: Engine, lo: number, hi: number, parts: number): number {
+  const hydraulics = (parts & HYDRAULICS) !== 0
+  const pressures = (parts & PRESSURES) !== 0
+  const givenUp = e.givenUpCount > 0
+  const anyUp = e.upsized.length > 0
+  const { parent, from, hot, supply } = e.g
+  const { sLoad, sWC, sU, sFV, sEq, matStart, matCount, invalid, fin, fo, io } = e
+  const { fixtureFlow, cap, devLoss } = e
+  const { idMm, roughnessMm } = e.sizes
+  const memo = e.memo
+  const mem = memo.rows
+  const { columns, series, valvesOn, equipmentOn, darcy, water } = e
+  const supplyKPa = supply >= 0 ? e.nodeOut(supply, 0) : 0
+  const unknown = UNKNOWN[0]!
+  let minMargin = Infinity
+  let unsized = 0
+  for (let q = lo; q < hi; q++) {
+    const fi = q * 3 /* FIN */
+    const o = q * 3 /* FOUT */
+    const i = q * 4 /* IOUT */
+    let fr: number
+    let s: number
+    if (hydraulics) {
+      let milli = sLoad[q]!
+      let fv = 0
+      if (valvesOn) {
+        const wc = sWC[q]!
+        const u = sU[q]!
+        if (series) milli += seriesUnits(wc, u) * LOAD_SCALE
+        fv = wc + u + sFV[q]! > 0 ? 1 : 0
+        // VALVE_CURVE; without flush valves it stays 0 (valvesOn never reverts).
+        io[i + 3 /* FLAGS */] = (io[i + 3]! & ~2) | (fv << 1)
+      }
+      const key = memoKey(milli, fv, io[i + 0 /* CLASS */]!)
+      const m = memoSlot(memo, key) * 5 /* MEMO_STRIDE */
+      let lps: number
+      let pw: number
+      let b: number
+      let perM: number
+      if (mem[m + 0 /* M_KEY */] === key) {
+        lps = mem[m + 1 /* M_LPS */]!
+        pw = mem[m + 2 /* M_POW */]!
+        b = mem[m + 3 /* M_BASE */]!
+        perM = mem[m + 4 /* M_PER_M */]!
       } else {
-        fr = t.hw[k]! * e.leq[q]! * e.flowPow[q]!
+        lps = columnLps(columns[fv]!, milli / LOAD_SCALE)
+        pw = hwFlowTerm(lps)
+        b = baseSize(e, q, velocitySize(e, q, lps))
+        perM = perMetre(e, q, b, pw)
+        mem[m + 0 /* M_KEY */] = key
+        mem[m + 1 /* M_LPS */] = lps
+        mem[m + 2 /* M_POW */] = pw
+        mem[m + 3 /* M_BASE */] = b
+        mem[m + 4 /* M_PER_M */] = perM
+      }
+      let f = lps
+      if (equipmentOn) {
+        fixtureFlow[q] = lps
+        const eq = sEq[q]!
+        if (eq !== 0) {
+          f = lps + eq / FLOW_SCALE
+          pw = hwFlowTerm(f)
+          b = baseSize(e, q, velocitySize(e, q, f))
+          perM = perMetre(e, q, b, pw)
+        }
+      }
+      fo[o + 0 /* FLOW */] = f
+      s = b
+      if (b >= 0) {
+        const u = anyUp ? io[i + 1 /* UP */]! : 0
+        if (u !== 0) {
+          s = Math.min(b + u, matCount[q]! - 1)
+          perM = perMetre(e, q, s, pw)
+        }
+      } else if (!invalid[q]) {
+        unsized++
+      }
+      io[i + 2 /* SIZE */] = s
+      if (!darcy) {
+        fr = perM * fin[fi + 0 /* LEQ */]! // perM is 0 without a size or a flow
+      } else if (s >= 0 && f > 0) {
+        const k = matStart[q]! + s
+        const w = hot[q] ? water.hot : water.cold
+        fr = darcyLossKPa(f, idMm[k]!, fin[fi + 0 /* LEQ */]!, roughnessMm[k]!, w.nu, w.rho)
+      } else {
+        fr = 0
+      }
+      fo[o + 1 /* FRICTION */] = fr
+    } else {
+      fr = fo[o + 1 /* FRICTION */]!
+      s = io[i + 2 /* SIZE */]!
+    }
+    if (pressures) {
+      const p = parent[q]!
+      let inP: number
+      if (p >= 0) {
+        inP = fo[p * 3 + 2 /* OUT_P */]!
+        // As nodeOut (pressures.ts): a valve caps, a device loses; a junction passes on.
+        if (io[i + 3 /* FLAGS */]! & 4 /* AFTER_DEVICE */) {
+          const v = from[q]!
+          inP = Math.min(inP, cap[v]!) - devLoss[v]!
+        }
+      } else {
+        inP = from[q] === supply ? supplyKPa : unknown
+      }
+      // NaN marks an unknown pressure: not reached from the supply, or a pipe on the way unsized.
+      const out = s >= 0 ? inP - (fr + fin[fi + 1 /* RISE */]!) : unknown // as dropAt
+      fo[o + 2 /* OUT_P */] = out
+      // As marginAt (pressures.ts), which builds the margin tree from the same numbers: +Infinity
+      // where nothing is required (REQ is -Infinity), NaN where unknown (never the smallest).
+      const margin = out - fin[fi + 2 /* REQ */]!
+      if (margin < minMargin && !(givenUp && io[i + 3 /* FLAGS */]! & 1) /* GIVEN_UP */) {
+        minMargin = margin
       }
     }
-  } else {
-    e.velocity[q] = NaN
   }
-  e.friction[q] = fr
-  e.drop[q] = fr + e.riseKPa[q]!
+  e.sweepUnsized = unsized
+  return minMargin
+}
+
+/** Load, flow, size and friction of pipe q from its sums (pressures untouched). */
+export function hydraulicsAt(e: Engine, q: number): void {
+  sweep(e, q, q + 1, HYDRAULICS)
+}
+
+/** Friction of pipe q at its current size (after the budget enlarged it). */
+export function sizeHydraulics(e: Engine, q: number): void {
+  const s = e.io[q * IOUT + SIZE]!
+  const f = e.fo[q * FOUT + FLOW]!
+  const leq = e.fin[q * FIN + LEQ]!
+  let fr = 0
+  if (s >= 0 && f > 0) {
+    if (e.darcy) {
+      const k = e.matStart[q]! + s
+      const t = e.sizes
+      const w = e.g.hot[q] ? e.water.hot : e.water.cold
+      fr = darcyLossKPa(f, t.idMm[k]!, leq, t.roughnessMm[k]!, w.nu, w.rho)
+    } else {
+      fr = perMetre(e, q, s, hwFlowTerm(f)) * leq
+    }
+  }
+  e.fo[q * FOUT + FRICTION] = fr
 }
 
 /** Sums, sizes and pressures from scratch, then the pressure budget if some fixture is short. */
 export function recomputeAll(e: Engine): void {
   sumLoads(e)
-  const n = e.g.pipeCount
-  e.up.fill(0)
-  e.upsized = []
-  e.givenUp.fill(0)
-  e.givenUpCount = 0
-  let unsized = 0
-  const leaves = e.leaves
+  clearBudget(e)
   // Pre-order: a pipe's parent is done before it, so sizes and pressures share one sweep.
-  for (let q = 0; q < n; q++) {
-    hydraulicsAt(e, q)
-    if (e.size[q]! < 0 && !e.invalid[q]) unsized++
-    pressureAt(e, q)
-    leaves[q] = leafValue(e, q)
-  }
-  e.unsizedCount = unsized
-  e.tree.build(leaves)
+  const minMargin = sweep(e, 0, e.g.pipeCount, HYDRAULICS | PRESSURES)
+  e.unsizedCount = e.sweepUnsized
+  deferMargins(e)
   updatePrvInlets(e)
   e.stale = false
-  if (unsized === 0) budgetRounds(e)
+  if (e.unsizedCount === 0 && minMargin < 0) budgetRounds(e)
 }
 
 // Post-order sums: children have larger indices than their parent, so one backward sweep.

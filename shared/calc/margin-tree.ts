@@ -4,32 +4,54 @@
  * subtree is one contiguous range, so a change in one pipe's pressure drop is one range add and
  * "is any fixture short of pressure?" is one read — the incremental path's O(log n) check.
  * Lazy values stay on their node (no push-down): a node's min already includes its own lazy.
+ * A full recompute hands over its leaves with `defer`; the tree is built from them on first use,
+ * so a recompute that finds every fixture supplied never pays for a tree nobody reads.
  */
 export class MarginTree {
   private readonly size: number
   private readonly mn: Float64Array
   private readonly lz: Float64Array
+  /** Leaf values handed over by `defer` and not yet built. */
+  private pending: ((i: number) => number) | null = null
+  private readonly n: number
 
   /** A tree over `n` leaves, all +Infinity. */
   constructor(n: number) {
     let size = 1
     while (size < Math.max(1, n)) size <<= 1
     this.size = size
+    this.n = n
     this.mn = new Float64Array(2 * size).fill(Infinity)
     this.lz = new Float64Array(2 * size)
   }
 
-  /** Replaces every leaf (values shorter than the tree leave the rest +Infinity). */
-  build(values: Float64Array): void {
-    const { size, mn, lz } = this
+  /** Replaces every leaf: leaf i becomes leafOf(i). */
+  build(leafOf: (i: number) => number): void {
+    this.pending = null
+    const { size, mn, lz, n } = this
     lz.fill(0)
-    mn.fill(Infinity, size)
-    mn.set(values, size)
-    for (let i = size - 1; i >= 1; i--) mn[i] = Math.min(mn[2 * i]!, mn[2 * i + 1]!)
+    mn.fill(Infinity, size + n)
+    for (let i = 0; i < n; i++) mn[size + i] = leafOf(i)
+    for (let i = size - 1; i >= 1; i--) {
+      const a = mn[2 * i]!
+      const b = mn[2 * i + 1]!
+      mn[i] = a < b ? a : b
+    }
+  }
+
+  /** `build` on first use: leafOf must read state that stays unchanged until then. */
+  defer(leafOf: (i: number) => number): void {
+    this.pending = leafOf
+  }
+
+  /** Builds deferred leaves now (before the state they read changes). */
+  ready(): void {
+    if (this.pending) this.build(this.pending)
   }
 
   /** Adds `v` to leaves [l, r). */
   rangeAdd(l: number, r: number, v: number): void {
+    this.ready()
     if (l < r && v !== 0) this.add(l, r, v, 1, 0, this.size)
   }
 
@@ -49,11 +71,13 @@ export class MarginTree {
 
   /** Smallest leaf value. */
   min(): number {
+    this.ready()
     return this.mn[1]!
   }
 
   /** Position of the leftmost smallest leaf. */
   argMin(): number {
+    this.ready()
     const { mn, lz, size } = this
     let node = 1
     while (node < size) {
@@ -65,6 +89,7 @@ export class MarginTree {
 
   /** Sets leaf `i` to `value`. */
   set(i: number, value: number): void {
+    this.ready()
     const { mn, lz, size } = this
     let node = (i + size) >> 1
     let above = 0
@@ -82,6 +107,7 @@ export class MarginTree {
 
   /** Current value of leaf `i`. */
   get(i: number): number {
+    this.ready()
     const { mn, lz, size } = this
     let node = i + size
     let v = mn[node]!

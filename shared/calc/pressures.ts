@@ -6,7 +6,21 @@
  * steepest unlocked pipe on its path.
  */
 import type { Engine } from './engine.ts'
-import { sizeHydraulics, hydraulicsAt } from './hydraulics.ts'
+import { hydraulicsAt, PRESSURES, sizeHydraulics, sweep } from './hydraulics.ts'
+import {
+  FIN,
+  FLAGS,
+  FOUT,
+  FRICTION,
+  GIVEN_UP,
+  IOUT,
+  LEQ,
+  OUT_P,
+  REQ,
+  RISE,
+  SIZE,
+  UP,
+} from './pipe-record.ts'
 
 /** Residual pressure leaving node v given the pressure arriving at it. */
 export function nodeOut(e: Engine, v: number, inP: number): number {
@@ -15,48 +29,59 @@ export function nodeOut(e: Engine, v: number, inP: number): number {
   return Math.min(inP, e.cap[v]!) - e.devLoss[v]!
 }
 
-/** Residual and static pressure at pipe q's outlet from its parent's (or the supply's). */
-export function pressureAt(e: Engine, q: number): void {
-  const p = e.g.parent[q]!
-  const v = e.g.from[q]!
-  let base = 0
-  let sBase = 0
-  let kb = 0
-  if (p < 0) {
-    if (v === e.g.supply) {
-      base = sBase = (e.doc.nodes[v] as { pressureKPa: number }).pressureKPa
-      kb = 1
-    }
-  } else {
-    const cap = e.inCap[q]!
-    base = Math.min(e.outP[p]!, cap) - e.inLoss[q]!
-    sBase = Math.min(e.staticOut[p]!, cap)
-    kb = e.known[p]!
-  }
-  e.outP[q] = base - e.drop[q]!
-  e.staticOut[q] = sBase - e.riseKPa[q]!
-  e.known[q] = kb && e.size[q]! >= 0 ? 1 : 0
-}
-
-/** Margin at pipe q's outlet, or +Infinity where nothing is checked. */
-export function leafValue(e: Engine, q: number): number {
-  const r = e.outReq[q]!
-  return e.known[q] && r === r && !e.givenUp[q] ? e.outP[q]! - r : Infinity
-}
-
 /** Records the pressure arriving at each pressure-reducing valve (for live corrections). */
 export function updatePrvInlets(e: Engine): void {
-  for (const v of e.g.prvs) e.prvIn[v] = e.outP[inletOf(e, v)]!
+  for (const v of e.g.prvs) e.prvIn[v] = e.fo[inletOf(e, v) * FOUT + OUT_P]!
 }
 
-/** Exact pre-order pass: residual and static pressure at every pipe outlet; rebuilds the tree. */
-export function pressurePass(e: Engine): void {
-  const n = e.g.pipeCount
-  for (let q = 0; q < n; q++) pressureAt(e, q)
-  for (let q = 0; q < n; q++) e.leaves[q] = leafValue(e, q)
-  e.tree.build(e.leaves)
+/**
+ * Static pressure (no flow, so no friction or device losses) at every pipe outlet: the supply
+ * pressure, capped by pressure-reducing valves, minus 9.81 kPa per metre of rise. Depends only on
+ * the graph, elevations and set pressures, so it runs when one of those changes, not per edit.
+ */
+export function staticPass(e: Engine): void {
+  const { parent, from, supply, pipeCount } = e.g
+  const { fin, staticOut } = e
+  const supplyKPa = supply >= 0 ? nodeOut(e, supply, 0) : 0
+  for (let q = 0; q < pipeCount; q++) {
+    const p = parent[q]!
+    let inStatic = 0
+    if (p >= 0) inStatic = e.nodeOutStatic(from[q]!, staticOut[p]!)
+    else if (from[q] === supply) inStatic = supplyKPa
+    staticOut[q] = inStatic - fin[q * FIN + RISE]!
+  }
+}
+
+/**
+ * Exact pre-order pass: residual pressure at every pipe outlet; renews the tree's
+ * leaves. Returns the smallest margin.
+ */
+export function pressurePass(e: Engine): number {
+  const minMargin = sweep(e, 0, e.g.pipeCount, PRESSURES)
+  deferMargins(e)
   updatePrvInlets(e)
   e.stale = false
+  return minMargin
+}
+
+/** Pressure drop over pipe q: friction plus static head, kPa. */
+export function dropAt(e: Engine, q: number): number {
+  return e.fo[q * FOUT + FRICTION]! + e.fin[q * FIN + RISE]!
+}
+
+/**
+ * Margin at pipe q's outlet: residual − required, +Infinity where nothing is checked (no
+ * requirement, pressure unknown, or the budget gave up on the fixture). The sweep computes the
+ * same inline (without the test for an unknown pressure: NaN is never the smallest).
+ */
+export function marginAt(e: Engine, q: number): number {
+  const m = e.fo[q * FOUT + OUT_P]! - e.fin[q * FIN + REQ]!
+  return m !== m || e.io[q * IOUT + FLAGS]! & GIVEN_UP ? Infinity : m
+}
+
+/** Hands the margin tree its leaves, to build when the live path first needs it. */
+export function deferMargins(e: Engine): void {
+  e.tree.defer((q) => marginAt(e, q))
 }
 
 /** The inlet pipe of node v (cold first), or -1. */
@@ -72,25 +97,31 @@ export function pathPressure(e: Engine, q: number): number {
   const root = path[path.length - 1]!
   const v0 = e.g.from[root]!
   let p = v0 === e.g.supply ? nodeOut(e, v0, 0) : 0
-  p -= e.drop[root]!
+  p -= dropAt(e, root)
   for (let i = path.length - 2; i >= 0; i--) {
     const x = path[i]!
-    p = nodeOut(e, e.g.from[x]!, p) - e.drop[x]!
+    p = nodeOut(e, e.g.from[x]!, p) - dropAt(e, x)
   }
   return p
 }
 
+/** Undoes every budget enlargement and given-up fixture; returns the pipes it had enlarged. */
+export function clearBudget(e: Engine): number[] {
+  const upsized = e.upsized
+  for (const q of upsized) e.io[q * IOUT + UP] = 0
+  e.upsized = []
+  if (e.givenUpCount > 0) {
+    for (let q = 0; q < e.g.pipeCount; q++) e.io[q * IOUT + FLAGS]! &= ~GIVEN_UP
+  }
+  e.givenUpCount = 0
+  return upsized
+}
+
 /** Undoes earlier enlargements, recomputes every pressure, then runs the budget rounds. */
 export function budget(e: Engine): void {
-  for (const q of e.upsized) {
-    e.up[q] = 0
-    hydraulicsAt(e, q)
-  }
-  e.upsized = []
-  e.givenUp.fill(0)
-  e.givenUpCount = 0
-  pressurePass(e)
-  if (e.unsizedCount === 0) budgetRounds(e)
+  for (const q of clearBudget(e)) hydraulicsAt(e, q)
+  const minMargin = pressurePass(e)
+  if (e.unsizedCount === 0 && minMargin < 0) budgetRounds(e)
 }
 
 /**
@@ -101,33 +132,32 @@ export function budget(e: Engine): void {
  */
 export function budgetRounds(e: Engine): void {
   const { parent, end } = e.g
+  const { fin, fo, io } = e
   while (e.tree.min() < 0) {
     const q = e.tree.argMin()
     let best = -1
     let bestRate = 0
     for (let x = q; x >= 0; x = parent[x]!) {
-      const s = e.size[x]!
+      const s = io[x * IOUT + SIZE]!
       if (e.locked[x]! >= 0 || e.matStart[x]! < 0 || s < 0 || s === e.matCount[x]! - 1) continue
-      const rate = e.friction[x]! / e.leq[x]!
+      const rate = fo[x * FOUT + FRICTION]! / fin[x * FIN + LEQ]!
       if (rate > bestRate || (rate === bestRate && best >= 0 && e.pipeIds[x]! < e.pipeIds[best]!)) {
         best = x
         bestRate = rate
       }
     }
     if (best < 0) {
-      e.givenUp[q] = 1
+      io[q * IOUT + FLAGS]! |= GIVEN_UP
       e.givenUpCount++
       e.tree.set(q, Infinity)
       continue
     }
-    if (e.up[best] === 0) e.upsized.push(best)
-    e.up[best]!++
-    e.size[best]!++
+    if (io[best * IOUT + UP] === 0) e.upsized.push(best)
+    io[best * IOUT + UP]!++
+    io[best * IOUT + SIZE]!++
     sizeHydraulics(e, best)
-    for (let x = best; x < end[best]!; x++) {
-      pressureAt(e, x)
-      e.tree.set(x, leafValue(e, x))
-    }
+    sweep(e, best, end[best]!, PRESSURES)
+    for (let x = best; x < end[best]!; x++) e.tree.set(x, marginAt(e, x))
     updatePrvInlets(e)
   }
 }

@@ -5,6 +5,19 @@
  */
 import { FIXTURES } from './fixtures.ts'
 import type { Engine } from './engine.ts'
+import { baseSize, loadAt, velocitySize } from './hydraulics.ts'
+import {
+  FIN,
+  FLAGS,
+  FLOW,
+  FOUT,
+  FRICTION,
+  IOUT,
+  LEQ,
+  OUT_P,
+  SIZE,
+  VALVE_CURVE,
+} from './pipe-record.ts'
 import { KIND } from './graph.ts'
 import { nominalInches } from './materials.ts'
 import type {
@@ -23,45 +36,60 @@ export function inletPressure(e: Engine, q: number): number | null {
   const p = e.g.parent[q]!
   const v = e.g.from[q]!
   if (p < 0) return v === e.g.supply ? e.nodeOut(v, 0) : null
-  return e.known[p] ? e.nodeOut(v, e.outP[p]!) : null
+  const outP = e.fo[p * FOUT + OUT_P]!
+  return Number.isNaN(outP) ? null : e.nodeOut(v, outP)
 }
 
 /** The result of one pipe. */
 export function pipeResult(e: Engine, q: number): PipeResult {
   const pipe = e.docPipe(q)
   const m = e.material[q]
-  const s = e.size[q]!
+  const o = q * FOUT
+  const i = q * IOUT
+  const s = e.io[i + SIZE]!
   const sized = s >= 0 && m !== null
+  const flow = e.fo[o + FLOW]!
+  const fixtureFlow = e.equipmentOn ? e.fixtureFlow[q]! : flow
+  const known = !Number.isNaN(e.fo[o + OUT_P])
   return {
     id: pipe.id,
     system: pipe.system,
-    load: e.load[q]!,
+    load: loadAt(e, q),
     flushValveClosets: e.sWC[q]!,
     flushValveUrinals: e.sU[q]!,
-    curve: e.flushValve[q] ? 'flush-valve' : 'flush-tank',
+    curve: e.io[i + FLAGS]! & VALVE_CURVE ? 'flush-valve' : 'flush-tank',
     demandTable: e.tableKey,
-    fixtureFlowLps: e.fixtureFlow[q]!,
-    equipmentFlowLps: e.flow[q]! - e.fixtureFlow[q]!,
-    flowLps: e.flow[q]!,
+    fixtureFlowLps: fixtureFlow,
+    equipmentFlowLps: flow - fixtureFlow,
+    flowLps: flow,
     material: m?.key ?? pipe.material ?? e.doc.settings.material,
     nominal: sized ? m.sizes[s]!.nominal : null,
     locked: pipe.nominal !== undefined,
     sizeBasis: sizeBasis(e, q),
     fixtureMinimum: fixtureMinimum(e, q),
     insideDiameterMm: sized ? m.sizes[s]!.insideDiameterMm : null,
-    velocityMps: sized ? e.velocity[q]! : null,
-    equivalentLengthM: e.leq[q]!,
-    lossKPa: sized ? e.friction[q]! : null,
-    inletPressureKPa: e.known[q] ? inletPressure(e, q) : null,
-    outletPressureKPa: e.known[q] ? e.outP[q]! : null,
+    velocityMps: sized ? flow / 1000 / e.sizes.area[e.matStart[q]! + s]! : null,
+    equivalentLengthM: e.fin[q * FIN + LEQ]!,
+    lossKPa: sized ? e.fo[o + FRICTION]! : null,
+    inletPressureKPa: known ? inletPressure(e, q) : null,
+    outletPressureKPa: known ? e.fo[o + OUT_P]! : null,
   }
+}
+
+/** Whether pipe q's load lies beyond the last row of its demand column (extrapolated). */
+function beyondTable(e: Engine, q: number): boolean {
+  const rows = e.columns[e.io[q * IOUT + FLAGS]! & VALVE_CURVE ? 1 : 0]!.load
+  return loadAt(e, q) > rows[rows.length - 1]!
 }
 
 function sizeBasis(e: Engine, q: number): SizeBasis {
   if (e.locked[q]! >= 0) return 'locked'
-  if (e.size[q]! < 0) return 'none'
-  if (e.size[q]! > e.base[q]!) return 'pressure-budget'
-  return e.base[q]! > e.velSize[q]! ? 'fixture-minimum' : 'velocity'
+  const size = e.io[q * IOUT + SIZE]!
+  if (size < 0) return 'none'
+  const velSize = velocitySize(e, q, e.fo[q * FOUT + FLOW]!)
+  const base = baseSize(e, q, velSize)
+  if (size > base) return 'pressure-budget'
+  return base > velSize ? 'fixture-minimum' : 'velocity'
 }
 
 /** The minimum supply size of the catalogue fixture pipe q feeds, or null. */
@@ -91,10 +119,12 @@ export function nodeResult(e: Engine, v: number): NodeResult {
   for (let side = 0; side < 2; side++) {
     const q = side === 0 ? e.g.inCold[v]! : e.g.inHot[v]!
     if (q < 0 || !e.g.rooted[q]) continue
-    const st = kind === KIND.fixture ? e.staticOut[q]! : e.nodeOutStatic(v, e.staticOut[q]!)
+    const staticOut = e.staticOut[q]!
+    const st = kind === KIND.fixture ? staticOut : e.nodeOutStatic(v, staticOut)
     statics = statics === null ? st : Math.max(statics, st)
-    if (!e.known[q]) continue
-    const p = kind === KIND.fixture ? e.outP[q]! : e.nodeOut(v, e.outP[q]!)
+    const outP = e.fo[q * FOUT + OUT_P]!
+    if (Number.isNaN(outP)) continue
+    const p = kind === KIND.fixture ? outP : e.nodeOut(v, outP)
     pressure = pressure === null ? p : Math.min(pressure, p)
   }
   return { id, pressureKPa: pressure, staticPressureKPa: statics }
@@ -137,7 +167,7 @@ function designIssues(
   for (let q = 0; q < e.g.pipeCount; q++) {
     const r = pipes[e.pipeIds[q]!]!
     if (e.invalid[q]) continue
-    if (e.size[q]! < 0) {
+    if (e.io[q * IOUT + SIZE]! < 0) {
       const limit = settings.velocityLimits[r.system]
       const largest = e.material[q]!.sizes.at(-1)!.nominal
       issues.push({
@@ -167,7 +197,7 @@ function designIssues(
         [r.id, min.nodeId],
       )
     }
-    if (e.beyondTable[q]) {
+    if (beyondTable(e, q)) {
       warn(
         'load-beyond-table',
         `Pipe ${r.id}: ${r.load.toFixed(1)} WSFU is beyond the demand table; the last segment was extended.`,

@@ -8,7 +8,8 @@
 import type { DiagramNode, Pipe } from '../document/model.ts'
 import type { Engine, UpdateMode } from './engine.ts'
 import { hydraulicsAt } from './hydraulics.ts'
-import { budget, inletOf, pathPressure } from './pressures.ts'
+import { IOUT, SIZE } from './pipe-record.ts'
+import { budget, dropAt, inletOf, pathPressure, staticPass } from './pressures.ts'
 
 /** What an engine update did and which pipes (internal indices) it touched. */
 export interface UpdateResult {
@@ -48,6 +49,7 @@ function isClean(e: Engine): boolean {
 
 /** Re-reads node i after a property edit and updates what depends on it. */
 export function updateNode(e: Engine, i: number, node: DiagramNode): UpdateResult {
+  e.tree.ready() // its deferred leaves read required pressures, which readNode may change
   const old = e.doc.nodes[i]!
   ;(e.doc.nodes as DiagramNode[])[i] = node
   const global =
@@ -57,6 +59,7 @@ export function updateNode(e: Engine, i: number, node: DiagramNode): UpdateResul
   if (global) {
     for (let q = 0; q < e.g.pipeCount; q++) e.readPipe(q)
     e.readNode(i)
+    staticPass(e)
     e.recomputeAll()
     return { mode: 'recompute', pipes: Array.from({ length: e.g.pipeCount }, (_, q) => q) }
   }
@@ -105,6 +108,7 @@ export function updateNode(e: Engine, i: number, node: DiagramNode): UpdateResul
 
 /** Re-reads pipe q after an edit of its length, material or locked size. */
 export function updatePipe(e: Engine, q: number, pipe: Pipe): UpdateResult {
+  e.tree.ready()
   ;(e.doc.pipes as Pipe[])[e.g.pipeDoc[q]!] = pipe
   const clean = isClean(e)
   e.readPipe(q)
@@ -117,12 +121,12 @@ export function updatePipe(e: Engine, q: number, pipe: Pipe): UpdateResult {
 function finish(e: Engine, touched: number[], clean: boolean): UpdateResult {
   const end = e.g.end
   for (const q of touched) {
-    const oldDrop = e.drop[q]!
-    const wasUnsized = e.size[q]! < 0 && !e.invalid[q]
+    const oldDrop = dropAt(e, q)
+    const wasUnsized = e.io[q * IOUT + SIZE]! < 0 && !e.invalid[q]
     hydraulicsAt(e, q)
-    const isUnsized = e.size[q]! < 0 && !e.invalid[q]
+    const isUnsized = e.io[q * IOUT + SIZE]! < 0 && !e.invalid[q]
     e.unsizedCount += (isUnsized ? 1 : 0) - (wasUnsized ? 1 : 0)
-    const d = e.drop[q]! - oldDrop
+    const d = dropAt(e, q) - oldDrop
     if (d !== 0) e.tree.rangeAdd(q, end[q]!, -d)
   }
   for (const v of e.g.prvs) {
