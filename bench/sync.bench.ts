@@ -1,8 +1,9 @@
 /**
  * Co-editing benchmark (`npm run bench:sync`). In one run, on this machine:
  * 1. edit → peer latency with 5 clients on one diagram through Tributary (validate, decide,
- *    append to the op log and commit, then broadcast), beside the same 5 clients on a bare
- *    socket.io relay that forwards a message of the same size without doing anything;
+ *    append to the op log and commit, then broadcast), beside 5 clients on a bare socket.io
+ *    relay that forwards a message of the same size without doing anything; edits alternate
+ *    between the two, so both meet the same moments of a shared machine;
  * 2. acknowledged edits per second with 5 clients pipelining edits to one diagram.
  * Uses the private PostgreSQL (started here, fsync on: every ack waits for a WAL flush) and its
  * own database, tributary_bench. Clients and server share this one Node process.
@@ -20,12 +21,13 @@ import { startRealtimeServer } from '../tests/integration/helpers/realtime-serve
 import { openSocket, type ClientSocket } from '../tests/integration/helpers/realtime-sync-client.ts'
 
 const CLIENTS = 5
-const EDITS = Number(process.env.BENCH_EDITS ?? 400)
+const EDITS = Number(process.env.BENCH_EDITS ?? 1000)
 const THROUGHPUT_MS = Number(process.env.BENCH_MS ?? 4000)
 const WINDOW = 64 // edits in flight per client in the throughput run
 // Per-socket limit for this run. The default (REALTIME_RATE 200/s, burst 400) caps 5 clients at
-// 1,000 edits/s, below the target; 1,000/s per socket is still a limit a runaway client hits.
-const RATE = process.env.BENCH_RATE ?? '1000'
+// 1,000 edits/s, below the target; 2,500/s per socket lets the server, not the limiter, set the
+// pace and is still a limit a runaway client hits.
+const RATE = process.env.BENCH_RATE ?? '2500'
 const PGPORT = process.env.PGPORT ?? '54329'
 process.env.DATABASE_URL ??= `postgres://postgres@127.0.0.1:${PGPORT}/tributary_bench`
 const sh = (cmd: string, env: Record<string, string> = {}) =>
@@ -36,29 +38,49 @@ const quantile = (values: number[], p: number) => {
   return s[Math.min(s.length - 1, Math.floor(p * s.length))] ?? 0
 }
 
-/** Sends EDITS messages one at a time from rotating senders; returns every peer's receipt delay. */
-async function measure(
-  clients: {
-    emit: (i: number, id: string) => void
-    onReceive: (cb: (id: string) => void) => void
-  }[],
-) {
+/** `promise`, or a clear error after 10 s. */
+function withTimeout<T>(promise: Promise<T>, what: string): Promise<T> {
+  let timer: NodeJS.Timeout | undefined
+  const timeout = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => reject(new Error(`timed out after 10 s waiting for ${what}`)), 10_000)
+  })
+  return Promise.race([promise, timeout]).finally(() => clearTimeout(timer))
+}
+
+interface Peers {
+  emit: (i: number, id: string) => void
+  onReceive: (cb: (id: string) => void) => void
+}
+
+/**
+ * Sends EDITS messages one at a time from rotating senders, alternating between the two sets of
+ * clients so that both meet the same machine at the same moments (a busy neighbour, a slow disk
+ * flush); returns every peer's receipt delay for each set.
+ */
+async function measure(relay: Peers[], tributary: Peers[]): Promise<[number[], number[]]> {
   const sentAt = new Map<string, number>()
   const received = new Map<string, number>()
-  const samples: number[] = []
-  for (const c of clients) {
-    c.onReceive((id) => {
-      const t = sentAt.get(id)
-      if (t === undefined) return
-      samples.push(performance.now() - t)
-      received.set(id, (received.get(id) ?? 0) + 1)
-    })
-  }
-  for (let i = 0; i < EDITS; i++) {
+  const samples: [number[], number[]] = [[], []]
+  let reachedAll: (() => void) | null = null
+  ;[relay, tributary].forEach((clients, k) => {
+    for (const c of clients) {
+      c.onReceive((id) => {
+        const t = sentAt.get(id)
+        if (t === undefined) return
+        samples[k]!.push(performance.now() - t)
+        const count = (received.get(id) ?? 0) + 1
+        received.set(id, count)
+        if (count === CLIENTS - 1) reachedAll?.()
+      })
+    }
+  })
+  for (let i = 0; i < 2 * EDITS; i++) {
+    const clients = i % 2 === 0 ? relay : tributary
     const id = crypto.randomUUID()
+    const reached = new Promise<void>((resolve) => (reachedAll = resolve))
     sentAt.set(id, performance.now())
-    clients[i % CLIENTS]!.emit(i, id)
-    await waitUntil(() => received.get(id) === CLIENTS - 1, `edit ${i} to reach every peer`)
+    clients[(i >> 1) % CLIENTS]!.emit(i >> 1, id)
+    await withTimeout(reached, `edit ${i} to reach every peer`)
   }
   return samples
 }
@@ -78,18 +100,18 @@ async function bareRelay() {
     baseRevision: i,
     op: { type: 'node.move', id: 'J2', position: { x: i, y: i } },
   })
-  const samples = await measure(
-    sockets.map((s) => ({
-      emit: (i, id) => s.emit('relay', payload(i, id)),
-      onReceive: (cb) => s.on('relay', (m: { clientOpId: string }) => cb(m.clientOpId)),
-    })),
-  )
-  for (const s of sockets) s.close()
-  await io.close()
-  return samples
+  const peers: Peers[] = sockets.map((s) => ({
+    emit: (i, id) => s.emit('relay', payload(i, id)),
+    onReceive: (cb) => s.on('relay', (m: { clientOpId: string }) => cb(m.clientOpId)),
+  }))
+  const close = async () => {
+    for (const s of sockets) s.close()
+    await io.close()
+  }
+  return { peers, close }
 }
 
-async function tributary() {
+async function tributary(relay: Peers[]) {
   const srv = await startRealtimeServer({ REALTIME_RATE: RATE, REALTIME_BURST: RATE })
   const owner = await signUpAt(srv.url, 'Bench Owner')
   const { diagramId } = await createDiagramAt(srv.url, owner, seedDiagram())
@@ -109,7 +131,8 @@ async function tributary() {
       baseRevision: 0,
       op: { type: 'node.move', id: 'J2', position: { x: i, y: i } },
     })
-  const latency = await measure(
+  const [relayLatency, latency] = await measure(
+    relay,
     sockets.map((s) => ({
       emit: (i, id) => submit(s, i, id),
       onReceive: (cb) => s.on(EVENTS.opApplied, (m) => cb(m.clientOpId)),
@@ -141,14 +164,16 @@ async function tributary() {
   const perSecond = acked / seconds
   for (const s of sockets) s.close()
   await srv.close()
-  return { latency, perSecond, acked, rejected, seconds }
+  return { relayLatency, latency, perSecond, acked, rejected, seconds }
 }
 
 sh('bash scripts/pg.sh start')
 sh('bash scripts/pg.sh ensure-db tributary_bench')
 sh('node --import tsx scripts/migrate.ts')
-const relay = await bareRelay()
-const result = await tributary()
+const bare = await bareRelay()
+const result = await tributary(bare.peers)
+await bare.close()
+const relay = result.relayLatency
 const row = (name: string, s: number[]) =>
   `${name.padEnd(22)} ${quantile(s, 0.5).toFixed(2).padStart(8)} ${quantile(s, 0.99).toFixed(2).padStart(8)} ${String(s.length).padStart(8)}`
 console.log(`\nEdit → peer latency, ${CLIENTS} clients, ${EDITS} edits (ms)`)

@@ -70,20 +70,26 @@ export function opHandlers(ctx: RealtimeContext, state: SocketState): void {
 
 /**
  * Collects committed ops and sends them to the other server processes once per tick: a group
- * commit resolves all its ops in one tick, so it becomes one adapter message. Returns the
- * function that takes one op.
+ * commit resolves all its ops in one tick, so it becomes one adapter message. A process with no
+ * other process in sight sends nothing: each message is a NOTIFY that PostgreSQL hands back to
+ * this very process, and that round trip lengthened every edit's slowest deliveries by half.
+ * A process that starts announces itself through the adapter at once, long before its first
+ * client can sign in, join and read the diagram, so it is counted before it has anyone to tell;
+ * should one still miss an op, its clients see the gap in revisions and catch up from the log.
+ * Returns the function that takes one op.
  */
 export function relayOps(io: RealtimeServer): (applied: OpApplied) => void {
   let batch: OpApplied[] = []
-  const flush = () => {
+  const flush = async () => {
     const sending = batch
     batch = []
+    if ((await io.of('/').adapter.serverCount()) <= 1) return
     for (let i = 0; i < sending.length; i += RELAY_CHUNK) {
       io.serverSideEmit(RELAYED, sending.slice(i, i + RELAY_CHUNK))
     }
   }
   return (applied) => {
-    if (!batch.length) setImmediate(flush)
+    if (!batch.length) setImmediate(() => void flush())
     batch.push(applied)
   }
 }

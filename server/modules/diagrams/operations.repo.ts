@@ -2,6 +2,7 @@ import type { ProjectRole } from '../../../shared/auth/roles.ts'
 import type { Diagram } from '../../../shared/document/model.ts'
 import type { Operation } from '../../../shared/document/operations.ts'
 import type { Db } from '../../db/knex.ts'
+import { preparedQuery } from '../../db/prepared.ts'
 
 /** The diagram row as the op service needs it, read under `FOR UPDATE`. */
 export interface LockedDiagram {
@@ -173,45 +174,54 @@ export async function appendIfCurrent(
   state: { document: Diagram; revision: number; userId: string | null },
   snapshot: boolean,
 ): Promise<Date | null> {
-  const keepSnapshot = snapshot
-    ? `, snap AS (
-         INSERT INTO diagram_snapshots (diagram_id, revision, document)
-         SELECT id, revision, document FROM upd
-         ON CONFLICT (diagram_id, revision) DO NOTHING
-       )`
-    : ''
-  const result = await db.raw(
-    `WITH upd AS (
-       UPDATE diagrams AS d SET document = ?::jsonb, revision = ?, updated_by = ?,
-         updated_at = now(),
-         -- as the locked path: the row takes the document's name when that differs
-         name = CASE WHEN ?::text <> '' AND d.name IS DISTINCT FROM ?::text THEN ?::text ELSE d.name END
-       WHERE d.id = ? AND d.revision = ? AND NOT EXISTS (
-         SELECT 1 FROM jsonb_to_recordset(?::jsonb) AS g(user_id uuid, role text)
-         WHERE NOT EXISTS (SELECT 1 FROM project_members m
-           WHERE m.project_id = d.project_id AND m.user_id = g.user_id AND m.role = g.role))
-       RETURNING d.id, d.revision, d.document
-     ), ins AS (
-       INSERT INTO diagram_ops (diagram_id, revision, client_op_id, author_id, source, restored_from, op)
-       SELECT upd.id, r.revision, r.client_op_id, r.author_id, r.source, r.restored_from, r.op
-       FROM upd, jsonb_to_recordset(?::jsonb) AS r(revision int, client_op_id text, author_id uuid,
-         source text, restored_from int, op jsonb)
-       RETURNING 1
-     )${keepSnapshot}
-     SELECT now() AS at, (SELECT count(*) FROM upd)::int AS updated`,
+  const name = state.document.name
+  const result = await preparedQuery<{ at: Date; updated: number }>(
+    db,
+    snapshot ? 'append-if-current-with-snapshot' : 'append-if-current',
+    snapshot ? APPEND_WITH_SNAPSHOT : APPEND,
     [
       JSON.stringify(state.document),
       state.revision,
       state.userId,
-      state.document.name.trim(),
-      state.document.name,
-      state.document.name.trim(),
+      name.trim(),
+      name,
       id,
       baseRevision,
       JSON.stringify(roles),
       JSON.stringify(rows.map(({ diagram_id: _d, ...row }) => row)),
     ],
   )
-  const row = (result as { rows: { at: Date; updated: number }[] }).rows[0]!
+  const row = result.rows[0]!
   return row.updated === 1 ? row.at : null
 }
+
+// appendIfCurrent's statement; $4 is the trimmed name, $5 the name as written.
+const APPEND_STATEMENT = (snapshot: boolean) =>
+  `WITH upd AS (
+     UPDATE diagrams AS d SET document = $1::jsonb, revision = $2::int, updated_by = $3::uuid,
+       updated_at = now(),
+       -- as the locked path: the row takes the document's name when that differs
+       name = CASE WHEN $4::text <> '' AND d.name IS DISTINCT FROM $5::text THEN $4::text ELSE d.name END
+     WHERE d.id = $6::uuid AND d.revision = $7::int AND NOT EXISTS (
+       SELECT 1 FROM jsonb_to_recordset($8::jsonb) AS g(user_id uuid, role text)
+       WHERE NOT EXISTS (SELECT 1 FROM project_members m
+         WHERE m.project_id = d.project_id AND m.user_id = g.user_id AND m.role = g.role))
+     RETURNING d.id, d.revision, d.document
+   ), ins AS (
+     INSERT INTO diagram_ops (diagram_id, revision, client_op_id, author_id, source, restored_from, op)
+     SELECT upd.id, r.revision, r.client_op_id, r.author_id, r.source, r.restored_from, r.op
+     FROM upd, jsonb_to_recordset($9::jsonb) AS r(revision int, client_op_id text, author_id uuid,
+       source text, restored_from int, op jsonb)
+     RETURNING 1
+   )${
+     snapshot
+       ? `, snap AS (
+     INSERT INTO diagram_snapshots (diagram_id, revision, document)
+     SELECT id, revision, document FROM upd
+     ON CONFLICT (diagram_id, revision) DO NOTHING
+   )`
+       : ''
+   }
+   SELECT now() AS at, (SELECT count(*) FROM upd)::int AS updated`
+const APPEND = APPEND_STATEMENT(false)
+const APPEND_WITH_SNAPSHOT = APPEND_STATEMENT(true)
