@@ -42,6 +42,10 @@ test('an editor and a reviewer share one diagram: presence, live edits with new 
   // Blake's selection is ringed and named on Casey's canvas; his pointer shows there too.
   await blake.selectNode('heater')
   await expect(casey.selectedBy('heater')).toHaveText(EDITOR.name)
+  await blake.pipeLabel('c-core').click()
+  await expect(casey.pipeSelectedBy('c-core')).toHaveText(`Selected by ${EDITOR.name}`)
+  await casey.page.screenshot({ path: 'test-results/screens/coediting-pipe-selection.png' })
+  await expect(casey.selectedBy('heater')).toHaveCount(0)
   await blake.hoverCanvas(400, 300)
   await expect(casey.cursorOf(EDITOR.name)).toBeVisible()
   await expect(blake.cursorOf(EDITOR.name)).toHaveCount(0)

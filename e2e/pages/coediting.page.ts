@@ -26,6 +26,11 @@ export class CoeditingPage extends EditorPage {
     return this.page.getByTestId(`node-selected-by-${nodeId}`)
   }
 
+  /** Who another person's pipe selection names (the title of its coloured band). */
+  pipeSelectedBy(pipeId: string) {
+    return this.page.getByTestId(`pipe-remote-${pipeId}`).locator('title')
+  }
+
   cursorOf(name: string) {
     return this.page.locator(`[data-testid="remote-cursor"][data-name="${name}"]`)
   }

@@ -33,18 +33,22 @@ export const usePresenceStore = defineStore('presence', () => {
 
   const others = computed(() => members.value.filter((m) => m.userId !== selfId.value))
 
-  /** Node id → the people (other than me) who have it selected, for the canvas rings. */
-  const remoteSelections = computed(() => {
-    const byNode = new Map<string, RemoteSelection[]>()
+  /** Id → the people (other than me) who have that node or pipe selected. */
+  function selectedByOthers(part: 'nodes' | 'pipes'): ReadonlyMap<string, RemoteSelection[]> {
+    const byId = new Map<string, RemoteSelection[]>()
     for (const member of others.value) {
-      for (const nodeId of member.selection.nodes) {
-        const list = byNode.get(nodeId) ?? []
+      for (const id of member.selection[part]) {
+        const list = byId.get(id) ?? []
         list.push({ name: member.name, color: member.color })
-        byNode.set(nodeId, list)
+        byId.set(id, list)
       }
     }
-    return byNode as ReadonlyMap<string, RemoteSelection[]>
-  })
+    return byId
+  }
+  /** Node id → the people (other than me) who have it selected, for the canvas rings. */
+  const remoteSelections = computed(() => selectedByOthers('nodes'))
+  /** Pipe id → the people (other than me) who have it selected, for the pipe halos. */
+  const remotePipeSelections = computed(() => selectedByOthers('pipes'))
 
   function open(id: string, self: string | null) {
     diagramId.value = id
@@ -108,6 +112,7 @@ export const usePresenceStore = defineStore('presence', () => {
     others,
     cursors,
     remoteSelections,
+    remotePipeSelections,
     open,
     setMembers,
     moveCursor,

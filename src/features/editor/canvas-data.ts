@@ -41,6 +41,8 @@ export interface PipeEdgeData {
   result?: PipeResult
   problems: CalcIssue[]
   units: UnitSystem
+  /** Other people who have this pipe selected. */
+  selectedBy?: RemoteSelection[]
 }
 
 /** Vue Flow type of every pipe edge. */

@@ -9,6 +9,7 @@ const person = (
   name: string,
   nodes: string[],
   color = '#d1495b',
+  pipes: string[] = [],
 ): PresenceMember => ({
   userId,
   name,
@@ -18,7 +19,7 @@ const person = (
     .join(''),
   color,
   role: 'editor',
-  selection: { nodes, pipes: [] },
+  selection: { nodes, pipes },
 })
 
 beforeEach(() => setActivePinia(createPinia()))
@@ -39,6 +40,21 @@ describe('presence store', () => {
       'Sam Ito',
     ])
     expect(presence.remoteSelections.has('J2')).toBe(false)
+  })
+
+  test('remote pipe selections map each pipe to the other people who selected it', () => {
+    const presence = usePresenceStore()
+    presence.open(DIAGRAM, 'u-me')
+    presence.setMembers(DIAGRAM, [
+      person('u-me', 'Me Myself', [], '#d1495b', ['P1']),
+      person('u-2', 'Robin Vale', ['P2'], '#2a9d8f', ['P1', 'P3']),
+    ])
+    expect(presence.remotePipeSelections.get('P1')).toEqual([
+      { name: 'Robin Vale', color: '#2a9d8f' },
+    ])
+    expect(presence.remotePipeSelections.has('P2')).toBe(false) // a node id, not a pipe
+    expect([...presence.remotePipeSelections.keys()]).toEqual(['P1', 'P3'])
+    expect(presence.remoteSelections.has('P1')).toBe(false)
   })
 
   test("cursors: others' only, for this diagram, gone when their owner leaves or we go offline", () => {

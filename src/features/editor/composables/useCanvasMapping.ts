@@ -35,6 +35,7 @@ export interface CanvasSources {
   selectedPipeIds: Ref<readonly string[]>
   dragPositions: Ref<ReadonlyMap<string, { x: number; y: number }>>
   remoteSelections?: Ref<ReadonlyMap<string, RemoteSelection[]>>
+  remotePipeSelections?: Ref<ReadonlyMap<string, RemoteSelection[]>>
 }
 
 const NO_PROBLEMS: CalcIssue[] = []
@@ -112,6 +113,7 @@ export function useCanvasMapping(sources: CanvasSources) {
     const selected = new Set(sources.selectedPipeIds.value)
     const results = sources.result.value.pipes
     const units = sources.units.value
+    const remote = sources.remotePipeSelections?.value
     const next = new Map<string, PipeFlowEdge>()
     const list: PipeFlowEdge[] = []
     for (const pipe of sources.doc.value.pipes) {
@@ -125,6 +127,7 @@ export function useCanvasMapping(sources: CanvasSources) {
         result: results[pipe.id],
         problems: problems.value.get(pipe.id) ?? NO_PROBLEMS,
         units,
+        selectedBy: remote?.get(pipe.id),
       })
       const edge: PipeFlowEdge = {
         id: pipe.id,

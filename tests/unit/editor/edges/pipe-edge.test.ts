@@ -2,6 +2,7 @@ import { afterEach, describe, expect, test } from 'vitest'
 import type { VueWrapper } from '@vue/test-utils'
 import type { CalcIssue, PipeResult } from '@shared/calc/types.ts'
 import type { UnitSystem } from '@shared/units/system.ts'
+import type { RemoteSelection } from '@/features/editor/canvas-data.ts'
 import { flowNode, flowPipe, mountCanvas } from '../nodes/mount-canvas.ts'
 import { pipeResult } from './pipe-result.ts'
 
@@ -12,6 +13,7 @@ afterEach(() => {
 })
 
 interface PipeCase {
+  selectedBy?: RemoteSelection[]
   system?: 'cold' | 'hot'
   nominal?: string
   result?: PipeResult
@@ -19,7 +21,14 @@ interface PipeCase {
   units?: UnitSystem
 }
 
-async function renderPipe({ system = 'cold', nominal, result, problems, units = 'si' }: PipeCase) {
+async function renderPipe({
+  system = 'cold',
+  nominal,
+  result,
+  problems,
+  units = 'si',
+  selectedBy,
+}: PipeCase) {
   const from = flowNode({ id: 'j1', kind: 'junction' }, { units })
   const to = flowNode(
     { id: 'f1', kind: 'fixture', fixture: 'lavatory' },
@@ -29,6 +38,7 @@ async function renderPipe({ system = 'cold', nominal, result, problems, units = 
     result,
     problems,
     units,
+    selectedBy,
   })
   wrapper = await mountCanvas([from, to], [pipe])
   return wrapper
@@ -86,6 +96,31 @@ describe('PipeEdge label', () => {
     const w = await renderPipe({ result: pipeResult() })
     expect(w.find('[data-testid="pipe-halo-p1"]').exists()).toBe(false)
     expect(w.find('[data-testid="pipe-problem-p1"]').exists()).toBe(false)
+  })
+})
+
+describe('PipeEdge selected by co-editors', () => {
+  test('draws one band per person in their colour, named in its title', async () => {
+    const w = await renderPipe({
+      result: pipeResult(),
+      selectedBy: [
+        { name: 'Robin Vale', color: '#2a9d8f' },
+        { name: 'Sam Ito', color: 'url(javascript:alert(1))' },
+      ],
+    })
+    const group = w.find('[data-testid="pipe-remote-p1"]')
+    expect(group.find('title').text()).toBe('Selected by Robin Vale, Sam Ito')
+    const bands = group.findAll('path').map((p) => p.attributes())
+    // Widest (the second person's, a malformed colour drawn neutral) first, under the first's.
+    expect(bands.map((b) => [b.stroke, b['stroke-width']])).toEqual([
+      ['#17405e', '11'],
+      ['#2a9d8f', '7'],
+    ])
+  })
+
+  test('nobody else selecting it: no band', async () => {
+    const w = await renderPipe({ result: pipeResult() })
+    expect(w.find('[data-testid="pipe-remote-p1"]').exists()).toBe(false)
   })
 })
 

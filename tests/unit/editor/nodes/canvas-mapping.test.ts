@@ -3,6 +3,7 @@ import { ref } from 'vue'
 import { computeDiagram } from '@shared/calc/compute.ts'
 import { fernhollowHallDiagram } from '@shared/demo/fernhollow-hall.ts'
 import type { Diagram } from '@shared/document/model.ts'
+import type { RemoteSelection } from '@/features/editor/canvas-data.ts'
 import { useCanvasMapping } from '@/features/editor/composables/useCanvasMapping.ts'
 
 // Vue Flow is told what changed by object identity, so the mapping must keep the canvas objects
@@ -10,6 +11,7 @@ import { useCanvasMapping } from '@/features/editor/composables/useCanvasMapping
 function mapping(doc: Diagram) {
   const source = ref(doc)
   const result = ref(computeDiagram(doc))
+  const remotePipeSelections = ref<ReadonlyMap<string, RemoteSelection[]>>(new Map())
   const mapped = useCanvasMapping({
     doc: source,
     result,
@@ -17,12 +19,13 @@ function mapping(doc: Diagram) {
     selectedNodeIds: ref([]),
     selectedPipeIds: ref([]),
     dragPositions: ref(new Map()),
+    remotePipeSelections,
   })
   const change = (next: Diagram) => {
     source.value = next
     result.value = computeDiagram(next)
   }
-  return { ...mapped, change }
+  return { ...mapped, change, remotePipeSelections }
 }
 
 const byId = <T extends { id: string }>(list: T[]) => new Map(list.map((item) => [item.id, item]))
@@ -35,6 +38,17 @@ describe('canvas mapping', () => {
     expect(nodes.value).not.toBe(beforeNodes)
     nodes.value.forEach((node, i) => expect(node).toBe(beforeNodes[i]))
     edges.value.forEach((edge, i) => expect(edge).toBe(beforeEdges[i]))
+  })
+
+  test("a co-editor's pipe selection replaces only that pipe, carrying who selected it", () => {
+    const { edges, remotePipeSelections } = mapping(fernhollowHallDiagram)
+    const before = byId(edges.value)
+    const pipeId = fernhollowHallDiagram.pipes[3]!.id
+    const robin = { name: 'Robin Vale', color: '#2a9d8f' }
+    remotePipeSelections.value = new Map([[pipeId, [robin]]])
+    const replaced = edges.value.filter((edge) => before.get(edge.id) !== edge)
+    expect(replaced.map((edge) => edge.id)).toEqual([pipeId])
+    expect(replaced[0]!.data!.selectedBy).toEqual([robin])
   })
 
   test('moving one node replaces only that node', () => {

@@ -51,7 +51,12 @@ export function flowPipe(
   input: Record<string, unknown>,
   from: DiagramFlowNode,
   to: DiagramFlowNode,
-  options: { result?: PipeResult; problems?: CalcIssue[]; units?: UnitSystem } = {},
+  options: {
+    result?: PipeResult
+    problems?: CalcIssue[]
+    units?: UnitSystem
+    selectedBy?: RemoteSelection[]
+  } = {},
 ): PipeFlowEdge {
   const pipe: Pipe = pipeSchema.parse({ ...input, from: from.id, to: to.id })
   return {
@@ -66,6 +71,7 @@ export function flowPipe(
       result: options.result,
       problems: options.problems ?? [],
       units: options.units ?? 'si',
+      selectedBy: options.selectedBy,
     },
   }
 }
