@@ -3,6 +3,7 @@
  * basis, the diagram picture, the pipe schedule, node pressures, problems and sources.
  */
 import type { ReportModel } from '../../../../shared/report/report-model.ts'
+import { issueText } from '../../../../shared/units/issue-text.ts'
 import { drawPicture } from './pdf-picture.ts'
 import { COLOURS, contentWidth, createPdf, MARGIN, pdfBuffer, type Pdf } from './pdf-kit.ts'
 import { footers, heading, labelled, list, note, paragraph } from './pdf-sections.ts'
@@ -64,7 +65,7 @@ export async function renderReportPdf(model: ReportModel): Promise<Buffer> {
       doc,
       model.problems.map(
         (p) =>
-          `${p.severity === 'error' ? 'Error' : 'Warning'} (${p.code}): ${p.message}${p.ids.length ? ` [${p.ids.join(', ')}]` : ''}`,
+          `${p.severity === 'error' ? 'Error' : 'Warning'} (${p.code}): ${issueText(p, model.units)}${p.ids.length ? ` [${p.ids.join(', ')}]` : ''}`,
       ),
     )
 

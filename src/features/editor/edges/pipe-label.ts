@@ -61,6 +61,6 @@ export function pipeLabelTitle(data: PipeEdgeData): string {
       `Pressure ${formatPressure(result.inletPressureKPa, units)} → ${formatPressure(result.outletPressureKPa, units)}`,
     )
   }
-  const problems = problemSummary(data.problems)
+  const problems = problemSummary(data.problems, units)
   return problems === '' ? lines.join('\n') : `${lines.join('\n')}\n${problems}`
 }

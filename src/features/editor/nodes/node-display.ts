@@ -2,6 +2,7 @@
 import type { CalcIssue, Severity } from '@shared/calc/types.ts'
 import type { DiagramNode, NodeKind } from '@shared/document/model.ts'
 import { formatFlow, formatPressure } from '@shared/units/format.ts'
+import { issueText } from '@shared/units/issue-text.ts'
 import type { UnitSystem } from '@shared/units/system.ts'
 import { fixtureLabel } from './fixture-info.ts'
 
@@ -57,12 +58,12 @@ export function worstSeverity(problems: readonly CalcIssue[]): Severity | null {
   return problems.length > 0 ? 'warning' : null
 }
 
-/** One line per problem, errors first, for a title tooltip. */
-export function problemSummary(problems: readonly CalcIssue[]): string {
+/** One line per problem, errors first, in the display units, for a title tooltip. */
+export function problemSummary(problems: readonly CalcIssue[], units: UnitSystem): string {
   const ordered = [...problems].sort(
     (a, b) => Number(b.severity === 'error') - Number(a.severity === 'error'),
   )
   return ordered
-    .map((p) => `${p.severity === 'error' ? 'Error' : 'Warning'}: ${p.message}`)
+    .map((p) => `${p.severity === 'error' ? 'Error' : 'Warning'}: ${issueText(p, units)}`)
     .join('\n')
 }

@@ -54,9 +54,14 @@ describe('node text', () => {
     expect(worstSeverity([])).toBeNull()
     expect(worstSeverity([issue('warning', 'w')])).toBe('warning')
     expect(worstSeverity([issue('warning', 'w'), issue('error', 'e')])).toBe('error')
-    expect(problemSummary([issue('warning', 'slow'), issue('error', 'dry')])).toBe(
+    expect(problemSummary([issue('warning', 'slow'), issue('error', 'dry')], 'si')).toBe(
       'Error: dry\nWarning: slow',
     )
+  })
+
+  test('the summary states pressures in the display units', () => {
+    const short = issue('warning', 'fixture wc-1 gets 95.2 kPa; it needs 100.0 kPa.')
+    expect(problemSummary([short], 'us')).toBe('Warning: fixture wc-1 gets 13.8 psi; it needs 14.5 psi.')
   })
 })
 

@@ -5,6 +5,7 @@
 import { explainPipe, type PipeExplanation } from '@shared/calc/explain'
 import type { DiagramResult } from '@shared/calc/types'
 import type { Diagram } from '@shared/document/model'
+import { issueText } from '@shared/units/issue-text'
 import type { UnitSystem } from '@shared/units/system'
 import { nodeRefText } from '@/features/editor/schedule/schedule-rows'
 import { demandLines } from './inspector-demand'
@@ -12,7 +13,11 @@ import { loadLines } from './inspector-load'
 import { pressureLines, sizeLines } from './inspector-size'
 import { line, type InspectorSection, type PipeInspection } from './inspector-types'
 
-function problemsSection(result: DiagramResult, pipeId: string): InspectorSection {
+function problemsSection(
+  result: DiagramResult,
+  pipeId: string,
+  units: UnitSystem,
+): InspectorSection {
   const named = result.issues.filter((i) => i.ids.includes(pipeId))
   return {
     key: 'problems',
@@ -20,7 +25,7 @@ function problemsSection(result: DiagramResult, pipeId: string): InspectorSectio
     lines:
       named.length === 0
         ? [line('None: every check on this pipe passes.', 'note')]
-        : named.map((i) => line(`${i.severity} ${i.code}: ${i.message}`, 'problem')),
+        : named.map((i) => line(`${i.severity} ${i.code}: ${issueText(i, units)}`, 'problem')),
   }
 }
 
@@ -47,7 +52,7 @@ export function inspectPipe(
     system: pipe.system,
     route: `${nodeRefText({ id: pipe.from, label: label(pipe.from) })} → ${nodeRefText({ id: pipe.to, label: label(pipe.to) })}`,
   }
-  const problems = problemsSection(result, pipeId)
+  const problems = problemsSection(result, pipeId, units)
   if (!result.pipes[pipeId]) {
     const errors = result.issues.filter((i) => i.severity === 'error').length
     return {
