@@ -1,18 +1,13 @@
 /**
- * The pipe schedule of the report: one row per pipe in document order, in the project's units,
- * formatted with the same shared formatters as the editor's schedule (a unit test holds the two
- * to the same text).
+ * The pipe schedule of the report: the editor's schedule rows (shared/schedule), one per pipe in
+ * document order, in the project's units.
  */
-import { MATERIALS } from '../calc/materials.ts'
 import type { CalcIssue, DiagramResult } from '../calc/types.ts'
 import type { Diagram } from '../document/model.ts'
-import { formatLoad, formatQuantity, NO_VALUE } from '../units/format.ts'
-import { formatNominal } from '../units/nominal.ts'
+import { buildScheduleRows } from '../schedule/schedule-rows.ts'
 import { unitSymbol, type Quantity } from '../units/quantities.ts'
 import type { UnitSystem } from '../units/system.ts'
 import type { ReportTable } from './report-table.ts'
-
-const CURVE = { 'flush-tank': 'flush tank', 'flush-valve': 'flush valve' } as const
 
 /** Issues by the ids they name (an issue naming two elements is listed under both). */
 export function issuesById(issues: readonly CalcIssue[]): Map<string, CalcIssue[]> {
@@ -27,8 +22,6 @@ export function issuesById(issues: readonly CalcIssue[]): Map<string, CalcIssue[
 export const markOf = (issues: readonly CalcIssue[] = []) =>
   issues.some((i) => i.severity === 'error') ? 'error' : issues.length ? 'warning' : null
 
-const ref = (id: string, label: string | undefined) => (label ? `${id} (${label})` : id)
-
 /** The schedule table of `doc` with `result` (computeDiagram of the same document). */
 export function reportSchedule(
   doc: Diagram,
@@ -36,10 +29,6 @@ export function reportSchedule(
   units: UnitSystem,
 ): ReportTable {
   const u = (q: Quantity) => unitSymbol(q, units)
-  const num = (q: Quantity, v: number | null | undefined) =>
-    formatQuantity(q, v ?? null, units, { unit: false })
-  const labels = new Map(doc.nodes.map((n) => [n.id, n.label]))
-  const byId = issuesById(result.issues)
   const table: ReportTable = {
     columns: [
       { title: 'Pipe', weight: 7 },
@@ -63,35 +52,29 @@ export function reportSchedule(
     rows: [],
     marks: [],
   }
-  for (const pipe of doc.pipes) {
-    const r = result.pipes[pipe.id]
-    const material = r?.material ?? pipe.material ?? doc.settings.material
-    const issues = byId.get(pipe.id) ?? []
-    const status = issues.length
-      ? [...new Set(issues.map((i) => i.code))].join(', ')
-      : r
-        ? 'ok'
-        : 'not computed'
+  const byId = issuesById(result.issues)
+  for (const row of buildScheduleRows(doc, result, units)) {
+    const t = row.text
     table.rows.push([
-      pipe.id,
-      ref(pipe.from, labels.get(pipe.from)),
-      ref(pipe.to, labels.get(pipe.to)),
-      pipe.system,
-      formatLoad(r?.load).replace(/ FU$/, ''),
-      r ? CURVE[r.curve] : NO_VALUE,
-      num('flow', r?.flowLps),
-      MATERIALS[material]?.label ?? material,
-      formatNominal(r ? r.nominal : pipe.nominal, units) + (pipe.nominal ? ' (locked)' : ''),
-      num('diameter', r?.insideDiameterMm),
-      num('velocity', r?.velocityMps),
-      num('length', pipe.lengthM),
-      num('length', r?.equivalentLengthM),
-      num('pressure', r?.lossKPa),
-      num('pressure', r?.inletPressureKPa),
-      num('pressure', r?.outletPressureKPa),
-      status,
+      t.id,
+      t.from,
+      t.to,
+      t.system,
+      t.load,
+      t.curve,
+      t.flow,
+      t.material,
+      t.nominal + (row.locked ? ' (locked)' : ''),
+      t.insideDiameter,
+      t.velocity,
+      t.length,
+      t.equivalentLength,
+      t.loss,
+      t.inletPressure,
+      t.outletPressure,
+      t.status,
     ])
-    table.marks.push(markOf(issues))
+    table.marks.push(markOf(byId.get(row.id)))
   }
   return table
 }

@@ -9,7 +9,6 @@ import { buildReportModel, type ReportInput } from '@shared/report/report-model'
 import { DESIGN_AID_CAUTION, NOT_SUBMITTED } from '@shared/report/review-status'
 import { formatQuantity } from '@shared/units/format'
 import type { UnitSystem } from '@shared/units/system'
-import { buildScheduleRows } from '@/features/editor/schedule/schedule-rows'
 import { sampleDiagram } from '../document/sample'
 
 const input = (doc: Diagram, units: UnitSystem = 'si'): ReportInput => ({
@@ -28,39 +27,46 @@ const input = (doc: Diagram, units: UnitSystem = 'si'): ReportInput => ({
 
 describe('report model', () => {
   test.each(['si', 'us'] as const)(
-    'the pipe schedule says what the editor schedule says (%s)',
+    'the pipe schedule is one row per pipe in document order, in the units, locked sizes marked (%s)',
     (units) => {
-      const doc = fernhollowHallDiagram
+      const core = fernhollowHallDiagram.pipes.findIndex((p) => p.id === 'c-core')
+      const doc = {
+        ...fernhollowHallDiagram,
+        pipes: fernhollowHallDiagram.pipes.map((p, i) => (i === core ? { ...p, nominal: '2' } : p)),
+      }
       const model = buildReportModel(input(doc, units))
-      const editor = buildScheduleRows(doc, computeDiagram(doc), units)
-      expect(model.schedule.rows).toHaveLength(doc.pipes.length)
-      model.schedule.rows.forEach((cells, i) => {
-        const t = editor[i]!.text
-        expect(cells).toEqual([
-          t.id,
-          t.from,
-          t.to,
-          t.system,
-          t.load,
-          t.curve,
-          t.flow,
-          t.material,
-          t.nominal,
-          t.insideDiameter,
-          t.velocity,
-          t.length,
-          t.equivalentLength,
-          t.loss,
-          t.inletPressure,
-          t.outletPressure,
-          t.status,
-        ])
-      })
+      expect(model.schedule.rows.map((cells) => cells[0])).toEqual(doc.pipes.map((p) => p.id))
+      const size = model.schedule.columns.findIndex((c) => c.title === 'Size')
+      expect(model.schedule.rows[core]![size]).toBe(
+        units === 'si' ? 'DN50 (locked)' : '2" (locked)',
+      )
+      expect(model.schedule.rows[core - 1]![size]).not.toContain('locked')
       expect(model.schedule.columns.map((c) => c.title)).toContain(
         units === 'si' ? 'Flow\n(L/s)' : 'Flow\n(gpm)',
       )
+      const flow = model.schedule.columns.findIndex((c) => c.title.startsWith('Flow'))
+      const first = computeDiagram(doc).pipes[doc.pipes[0]!.id]!
+      expect(model.schedule.rows[0]![flow]).toBe(
+        formatQuantity('flow', first.flowLps, units, { unit: false }),
+      )
     },
   )
+
+  test('a pipe named by a problem is marked with its worst severity and lists the codes once', () => {
+    const doc = {
+      ...fernhollowHallDiagram,
+      settings: { ...fernhollowHallDiagram.settings, velocityLimits: { cold: 0.3, hot: 0.3 } },
+    }
+    const model = buildReportModel(input(doc))
+    const status = model.schedule.columns.findIndex((c) => c.title === 'Status')
+    const marked = model.schedule.marks.filter((m) => m !== null)
+    expect(marked.length).toBeGreaterThan(0)
+    model.schedule.rows.forEach((cells, i) => {
+      const codes = cells[status]!.split(', ')
+      expect(new Set(codes).size).toBe(codes.length)
+      if (model.schedule.marks[i] === null) expect(cells[status]).toBe('ok')
+    })
+  })
 
   test('the title block names project, diagram, revision and dates; the caution and review status are carried', () => {
     const model = buildReportModel(input(sampleDiagram()))

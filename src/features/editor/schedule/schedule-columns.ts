@@ -3,34 +3,11 @@
  * same thing on screen and in the spreadsheet. Quantity columns carry their unit in the title;
  * their cells hold bare numbers.
  */
+import { SCHEDULE_COLUMN_KEYS, type ScheduleColumnKey } from '@shared/schedule/schedule-rows'
 import { unitSymbol, type Quantity } from '@shared/units/quantities'
 import type { UnitSystem } from '@shared/units/system'
 
-/** Keys of the schedule columns, in table order. */
-export const SCHEDULE_COLUMN_KEYS = [
-  'id',
-  'from',
-  'to',
-  'system',
-  'load',
-  'closets',
-  'urinals',
-  'curve',
-  'flow',
-  'material',
-  'nominal',
-  'insideDiameter',
-  'velocity',
-  'length',
-  'equivalentLength',
-  'loss',
-  'inletPressure',
-  'outletPressure',
-  'status',
-] as const
-
-/** A schedule column key. */
-export type ScheduleColumnKey = (typeof SCHEDULE_COLUMN_KEYS)[number]
+export { SCHEDULE_COLUMN_KEYS, type ScheduleColumnKey }
 
 interface ColumnSpec {
   title: string

@@ -6,7 +6,7 @@ import Papa from 'papaparse'
 import { toDisplay, type Quantity } from '@shared/units/quantities'
 import type { UnitSystem } from '@shared/units/system'
 import { columnTitle, type ScheduleColumnKey } from './schedule-columns'
-import { curveText, type ScheduleRow } from './schedule-rows'
+import { curveText, type ScheduleRow } from '@shared/schedule/schedule-rows'
 
 // Decimals kept per quantity: finer than the screen so a reviewer can recompute, but no float noise.
 const DECIMALS: Record<Quantity | 'load', Record<UnitSystem, number>> = {

@@ -4,7 +4,7 @@
  */
 import { nominalInches } from '@shared/units/nominal'
 import type { ScheduleColumnKey } from './schedule-columns'
-import type { ScheduleRow, ScheduleStatus } from './schedule-rows'
+import type { ScheduleRow, ScheduleStatus } from '@shared/schedule/schedule-rows'
 
 /** What the schedule's filter bar asks for. */
 export interface ScheduleFilter {

@@ -12,7 +12,7 @@ import {
   type ScheduleColumnKey,
 } from './schedule-columns'
 import type { SortOrder } from './schedule-query'
-import type { ScheduleRow } from './schedule-rows'
+import type { ScheduleRow } from '@shared/schedule/schedule-rows'
 
 /** The sort the table shows; null key = the document's order. */
 export interface ScheduleSort {

@@ -8,7 +8,7 @@ import {
   scheduleCsvHeaders,
   scheduleFileName,
 } from '@/features/editor/schedule/schedule-csv.ts'
-import { buildScheduleRows } from '@/features/editor/schedule/schedule-rows.ts'
+import { buildScheduleRows } from '@shared/schedule/schedule-rows.ts'
 import { scheduleDiagram } from './schedule-doc.ts'
 
 const doc = scheduleDiagram()

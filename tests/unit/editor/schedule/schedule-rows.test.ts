@@ -1,7 +1,7 @@
 import { describe, expect, test } from 'vitest'
 import { computeDiagram } from '@shared/calc/compute.ts'
 import { diagramSchema } from '@shared/document/model.ts'
-import { buildScheduleRows } from '@/features/editor/schedule/schedule-rows.ts'
+import { buildScheduleRows } from '@shared/schedule/schedule-rows.ts'
 import {
   compareScheduleRows,
   filterScheduleRows,

@@ -1,16 +1,41 @@
 /**
  * Rows of the pipe schedule: one per pipe of the document, SI numbers for sorting and export plus
- * display text in the chosen units. Pure, so thousands of pipes cost one pass over the document
- * and one over the issues.
+ * display text in the chosen units. The editor's schedule, its CSV and the report's schedule all
+ * read these rows. Pure, so thousands of pipes cost one pass over the document and one over the
+ * issues.
  */
-import { MATERIALS } from '@shared/calc/materials'
-import type { CalcIssue, DemandCurve, DiagramResult, Severity } from '@shared/calc/types'
-import type { Diagram, System } from '@shared/document/model'
-import { formatLoad, formatQuantity, NO_VALUE } from '@shared/units/format'
-import { formatNominal } from '@shared/units/nominal'
-import type { Quantity } from '@shared/units/quantities'
-import type { UnitSystem } from '@shared/units/system'
-import type { ScheduleColumnKey } from './schedule-columns'
+import { MATERIALS } from '../calc/materials.ts'
+import type { CalcIssue, DemandCurve, DiagramResult, Severity } from '../calc/types.ts'
+import type { Diagram, System } from '../document/model.ts'
+import { formatLoad, formatQuantity, NO_VALUE } from '../units/format.ts'
+import { formatNominal } from '../units/nominal.ts'
+import type { Quantity } from '../units/quantities.ts'
+import type { UnitSystem } from '../units/system.ts'
+
+/** Keys of the schedule columns, in table order. */
+export const SCHEDULE_COLUMN_KEYS = [
+  'id',
+  'from',
+  'to',
+  'system',
+  'load',
+  'closets',
+  'urinals',
+  'curve',
+  'flow',
+  'material',
+  'nominal',
+  'insideDiameter',
+  'velocity',
+  'length',
+  'equivalentLength',
+  'loss',
+  'inletPressure',
+  'outletPressure',
+  'status',
+] as const
+
+export type ScheduleColumnKey = (typeof SCHEDULE_COLUMN_KEYS)[number]
 
 /** A node at one end of a pipe. */
 export interface NodeRef {
@@ -79,7 +104,7 @@ function statusOf(problems: ScheduleProblem[], computed: boolean): ScheduleStatu
 }
 
 function statusText(row: Pick<ScheduleRow, 'problems' | 'status'>): string {
-  if (row.problems.length > 0) return row.problems.map((p) => p.code).join(', ')
+  if (row.problems.length > 0) return [...new Set(row.problems.map((p) => p.code))].join(', ')
   return row.status === 'not-computed' ? 'not computed' : 'ok'
 }
 
