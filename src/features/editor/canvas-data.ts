@@ -9,14 +9,9 @@ import type { CalcIssue, NodeResult, PipeResult } from '@shared/calc/types.ts'
 import type { NodeKind, NodeOfKind, Pipe } from '@shared/document/model.ts'
 import type { UnitSystem } from '@shared/units/system.ts'
 import PipeEdge from './edges/PipeEdge.vue'
-import BackflowPreventerNode from './nodes/BackflowPreventerNode.vue'
-import EquipmentNode from './nodes/EquipmentNode.vue'
+import DeviceNode from './nodes/DeviceNode.vue'
 import FixtureNode from './nodes/FixtureNode.vue'
 import JunctionNode from './nodes/JunctionNode.vue'
-import MeterNode from './nodes/MeterNode.vue'
-import PressureReducingValveNode from './nodes/PressureReducingValveNode.vue'
-import SupplyNode from './nodes/SupplyNode.vue'
-import WaterHeaterNode from './nodes/WaterHeaterNode.vue'
 import type { RemoteSelection } from './nodes/selection-ring.ts'
 
 export { HANDLE, HANDLE_SIDES, sourceHandleFor, targetHandleFor } from './nodes/handles.ts'
@@ -89,14 +84,14 @@ export function samePlain(a: unknown, b: unknown): boolean {
 
 /** Node components by kind, for `<VueFlow :node-types>`. */
 export const nodeTypes = markRaw({
-  supply: SupplyNode,
-  meter: MeterNode,
-  'backflow-preventer': BackflowPreventerNode,
-  'pressure-reducing-valve': PressureReducingValveNode,
-  'water-heater': WaterHeaterNode,
+  supply: DeviceNode,
+  meter: DeviceNode,
+  'backflow-preventer': DeviceNode,
+  'pressure-reducing-valve': DeviceNode,
+  'water-heater': DeviceNode,
   junction: JunctionNode,
   fixture: FixtureNode,
-  equipment: EquipmentNode,
+  equipment: DeviceNode,
 } satisfies Record<NodeKind, unknown>) as NodeTypesObject
 
 /** Edge components by type, for `<VueFlow :edge-types>`. */
