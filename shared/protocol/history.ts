@@ -12,12 +12,13 @@ export const revisionListQuerySchema = z.object({
 })
 
 export const revisionEntrySchema = z.object({
-  revision: z.number().int().positive(),
+  /** 0 is the diagram as created (its author is the creator). */
+  revision: z.number().int().nonnegative(),
   author: z.object({ id: z.string().nullable(), name: z.string() }),
   /** ISO 8601 commit time. */
   at: z.string(),
-  /** `edit` (live op), `save` (whole-document save) or `restore`. */
-  source: z.enum(['edit', 'save', 'restore']),
+  /** `edit` (live op), `save` (whole-document save), `restore`, or `create` (revision 0). */
+  source: z.enum(['edit', 'save', 'restore', 'create']),
   /** For a restore: the revision whose state was brought back. */
   restoredFrom: z.number().int().nonnegative().nullable(),
   summary: z.string(),

@@ -50,7 +50,14 @@ describe('revision history', () => {
     )
     expect(body.current).toBe(3)
     expect(body.earliest).toBe(0)
-    expect(body.revisions.map((r) => r.revision)).toEqual([3, 2, 1])
+    // Revision 0 is the diagram as its creator made it.
+    expect(body.revisions.map((r) => r.revision)).toEqual([3, 2, 1, 0])
+    expect(body.revisions[3]).toMatchObject({
+      author: { id: owner.user.id, name: 'Hana Owner' },
+      source: 'create',
+      restoredFrom: null,
+      summary: 'Created the diagram',
+    })
     expect(body.revisions[2]).toMatchObject({
       author: { id: owner.user.id, name: 'Hana Owner' },
       source: 'edit',
@@ -64,6 +71,14 @@ describe('revision history', () => {
       `${base()}/revisions?before=3&limit=1`,
     )
     expect(page.body.revisions.map((r) => r.revision)).toEqual([2])
+    // The page that reaches revision 1 also carries revision 0.
+    const last = await api<RevisionListBody>(
+      srv.url,
+      viewer,
+      'GET',
+      `${base()}/revisions?before=2&limit=1`,
+    )
+    expect(last.body.revisions.map((r) => r.revision)).toEqual([1, 0])
     const bad = await api(srv.url, viewer, 'GET', `${base()}/revisions?limit=0`)
     expect(bad.status).toBe(400)
   })

@@ -6,11 +6,16 @@
 import { randomUUID } from 'node:crypto'
 import type { Diagram } from '../../../shared/document/model.ts'
 import { applyOperation } from '../../../shared/document/operations.ts'
-import type { RestoreResult, RevisionListBody } from '../../../shared/protocol/history.ts'
+import type {
+  RestoreResult,
+  RevisionEntry,
+  RevisionListBody,
+} from '../../../shared/protocol/history.ts'
 import { diffDocuments } from '../../../shared/sync/diff.ts'
 import { summarizeOperation } from '../../../shared/sync/summary.ts'
 import type { Db } from '../../db/knex.ts'
 import { conflict, HttpError, notFound } from '../../errors.ts'
+import { findUserById } from '../users/users.repo.ts'
 import { findDiagramRow } from './diagrams.repo.ts'
 import type { OpFeed } from './operations.feed.ts'
 import {
@@ -21,10 +26,14 @@ import {
 } from './operations.repo.ts'
 import { commitOps } from './operations.service.ts'
 
-async function currentRevision(db: Db, projectId: string, diagramId: string) {
+async function diagramRow(db: Db, projectId: string, diagramId: string) {
   const row = await findDiagramRow(db, projectId, diagramId)
   if (!row) throw notFound('No such diagram in this project')
-  return row.revision
+  return row
+}
+
+async function currentRevision(db: Db, projectId: string, diagramId: string) {
+  return (await diagramRow(db, projectId, diagramId)).revision
 }
 
 export async function listRevisions(
@@ -33,9 +42,11 @@ export async function listRevisions(
   diagramId: string,
   page: { before?: number; limit: number },
 ): Promise<RevisionListBody> {
-  const current = await currentRevision(db, projectId, diagramId)
-  const rows = await opsDescending(db, diagramId, page.before ?? current + 1, page.limit)
-  const revisions = rows.map((row) => ({
+  const diagram = await diagramRow(db, projectId, diagramId)
+  const current = diagram.revision
+  const before = page.before ?? current + 1
+  const rows = await opsDescending(db, diagramId, before, page.limit)
+  const revisions: RevisionEntry[] = rows.map((row) => ({
     revision: row.revision,
     author: { id: row.author_id, name: row.author_name ?? 'a former member' },
     at: row.created_at.toISOString(),
@@ -43,7 +54,21 @@ export async function listRevisions(
     restoredFrom: row.restored_from,
     summary: summarizeOperation(row.op),
   }))
-  return { revisions, current, earliest: await earliestSnapshotRevision(db, diagramId) }
+  const earliest = await earliestSnapshotRevision(db, diagramId)
+  // The page that reaches revision 1 ends with the diagram as created (one entry over the limit),
+  // while that state is still kept.
+  if (earliest === 0 && (rows.at(-1)?.revision ?? before) === 1) {
+    const creator = diagram.created_by ? await findUserById(db, diagram.created_by) : undefined
+    revisions.push({
+      revision: 0,
+      author: { id: diagram.created_by, name: creator?.name ?? 'a former member' },
+      at: diagram.created_at.toISOString(),
+      source: 'create',
+      restoredFrom: null,
+      summary: 'Created the diagram',
+    })
+  }
+  return { revisions, current, earliest }
 }
 
 /** The document at `revision`, rebuilt from the nearest snapshot at or before it. */
