@@ -1,5 +1,37 @@
 import { OPS, type Operation } from '../document/operations.ts'
 
+// What a designer calls the fields an op changes; a key not listed is shown as it is.
+const FIELD_WORDS: Record<string, string> = {
+  label: 'label',
+  elevationM: 'elevation',
+  levelId: 'level',
+  position: 'position',
+  pressureKPa: 'supply pressure',
+  lossKPa: 'pressure loss',
+  setKPa: 'set pressure',
+  fixture: 'fixture type',
+  count: 'count',
+  occupancy: 'occupancy',
+  load: 'load override',
+  minPressureKPa: 'minimum pressure',
+  flowLps: 'flow',
+  lengthM: 'length',
+  material: 'material',
+  nominal: 'locked size',
+  system: 'system',
+  loadBasis: 'load basis',
+  velocityLimits: 'velocity limits',
+  fittingAllowance: 'fitting allowance',
+  frictionMethod: 'friction method',
+  maxStaticKPa: 'maximum static pressure',
+  waterTempC: 'water temperature',
+}
+
+const fields = (patch: object) =>
+  Object.keys(patch)
+    .map((key) => FIELD_WORDS[key] ?? key)
+    .join(', ')
+
 /**
  * A short plain-language line for an op, for the revision list.
  * @example
@@ -11,7 +43,7 @@ export function summarizeOperation(op: Operation): string {
     case OPS.nodeAdd:
       return `added ${op.node.id}`
     case OPS.nodeUpdate:
-      return `changed ${Object.keys(op.patch).join(', ')} of ${op.id}`
+      return `changed ${fields(op.patch)} of ${op.id}`
     case OPS.nodeMove:
       return `moved ${op.id}`
     case OPS.nodeRemove:
@@ -19,11 +51,11 @@ export function summarizeOperation(op: Operation): string {
     case OPS.pipeAdd:
       return `added pipe ${op.pipe.id} (${op.pipe.from} → ${op.pipe.to})`
     case OPS.pipeUpdate:
-      return `changed ${Object.keys(op.patch).join(', ')} of pipe ${op.id}`
+      return `changed ${fields(op.patch)} of pipe ${op.id}`
     case OPS.pipeRemove:
       return `removed pipe ${op.id}`
     case OPS.settingsUpdate:
-      return `changed settings: ${Object.keys(op.patch).join(', ')}`
+      return `changed settings: ${fields(op.patch)}`
     case OPS.levelAdd:
       return `added level ${op.level.name}`
     case OPS.levelUpdate:

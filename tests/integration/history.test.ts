@@ -156,7 +156,7 @@ describe('revision history', () => {
     const list = await api<RevisionListBody>(srv.url, owner, 'GET', `${base()}/revisions?limit=1`)
     expect(list.body.revisions[0]).toMatchObject({
       source: 'save',
-      summary: 'changed settings: fittingAllowance',
+      summary: 'changed settings: fitting allowance',
     })
     await waitUntil(() => client.replica.revision === row.revision + 1, 'save broadcast')
 

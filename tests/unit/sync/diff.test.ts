@@ -100,6 +100,15 @@ describe('graph rules and presence helpers', () => {
     )
     expect(
       summarizeOperation({
+        type: 'settings.update',
+        patch: { minPressureKPa: 380, material: 'pex' },
+      }),
+    ).toBe('changed settings: minimum pressure, material')
+    expect(
+      summarizeOperation({ type: 'pipe.update', id: 'P4', patch: { lengthM: 3, nominal: '1' } }),
+    ).toBe('changed length, locked size of pipe P4')
+    expect(
+      summarizeOperation({
         type: 'batch',
         ops: [
           { type: 'node.remove', id: 'A' },
