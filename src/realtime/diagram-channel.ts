@@ -20,6 +20,8 @@ export const RESEND_BASE_MS = 1_000
 const RESEND_MAX_MS = 10_000
 
 export interface DiagramChannel {
+  /** The channel's socket, joined to the diagram's room (the comments feed listens on it). */
+  readonly socket: DiagramSocket
   /** Leaves the room and closes the socket; pending ops stay in the document store. */
   close(): void
 }
@@ -178,6 +180,7 @@ export function openDiagramChannel(diagramId: string, options: ChannelOptions): 
   socket.connect()
 
   return {
+    socket,
     close() {
       if (closed) return
       closed = true

@@ -9,15 +9,19 @@ import { createServer, type Server as HttpServer } from 'node:http'
 import type { AddressInfo } from 'node:net'
 import { createPinia, setActivePinia } from 'pinia'
 import { Server, type Socket as ServerSocket } from 'socket.io'
-import { afterEach, beforeEach, describe, expect, test } from 'vitest'
+import { afterEach, beforeEach, describe, expect, test, vi } from 'vitest'
 import type { ClientToServerEvents, ServerToClientEvents } from '@shared/protocol/event-maps'
 import type { JoinMessage, OpSubmit } from '@shared/protocol/client-messages'
 import type { OpApplied, PresenceMember } from '@shared/protocol/server-messages'
+import type { CommentThread } from '@shared/api/comments'
+import { openCommentsFeed } from '@/realtime/comments'
 import { openDiagramChannel, type DiagramChannel } from '@/realtime/diagram-channel'
 import { createDiagramSocket } from '@/realtime/socket'
+import { useCommentsStore } from '@/stores/comments'
 import { useConnectionStore } from '@/stores/connection'
 import { useDocumentStore } from '@/stores/document'
 import { usePresenceStore } from '@/stores/presence'
+import { useReviewsStore } from '@/stores/reviews'
 import { sampleDiagram } from '../document/sample'
 
 const DIAGRAM = '6f1c2d3e-4b5a-4c6d-8e7f-0a1b2c3d4e5f'
@@ -257,5 +261,40 @@ describe('realtime channel', () => {
     channel = null
     await waitFor(() => events.includes('diagram:leave'), 'leave')
     expect(connection.status).toBe('idle')
+  })
+})
+
+/** Sends an event the typed test server does not list (comment events ride the same socket). */
+const sayToClient = (event: string, message: unknown) =>
+  (peer as unknown as { emit(event: string, message: unknown): void }).emit(event, message)
+
+describe('comments feed on the channel socket', () => {
+  test('thread and review changes arrive on it; after a drop threads and review are read again', async () => {
+    serve()
+    const { connection } = open()
+    const comments = useCommentsStore()
+    const reviews = useReviewsStore()
+    const reloads: string[] = []
+    vi.spyOn(comments, 'load').mockImplementation(async () => void reloads.push('threads'))
+    vi.spyOn(reviews, 'load').mockImplementation(async () => void reloads.push('review'))
+    const feed = openCommentsFeed('p-1', DIAGRAM, channel!.socket)
+    await waitFor(() => connection.status === 'synced', 'sync')
+
+    const thread = { id: 't-1', diagramId: DIAGRAM } as unknown as CommentThread
+    sayToClient('comment:thread', { diagramId: DIAGRAM, thread })
+    sayToClient('comment:thread', { diagramId: 'another', thread })
+    await waitFor(() => comments.threads.length === 1, 'the thread')
+    expect(reloads).toEqual([])
+
+    peer!.disconnect(true)
+    await waitFor(() => reloads.length === 2, 'reload after the reconnect')
+    expect(reloads.sort()).toEqual(['review', 'threads'])
+    // One socket: the feed never joined on its own.
+    expect(joins).toHaveLength(2)
+
+    feed.close()
+    sayToClient('comment:thread', { diagramId: DIAGRAM, thread: { ...thread, id: 't-2' } })
+    await new Promise((resolve) => setTimeout(resolve, 50))
+    expect(comments.threads.map((t) => t.id)).toEqual(['t-1'])
   })
 })
