@@ -6,7 +6,7 @@
  *    between the two, so both meet the same moments of a shared machine;
  * 2. acknowledged edits per second with 5 clients pipelining edits to one diagram.
  * Uses the private PostgreSQL (started here, fsync on: every ack waits for a WAL flush) and its
- * own database, tributary_bench. Clients and server share this one Node process.
+ * own database, tributary_bench, made afresh each run. Clients and server share this one Node process.
  * Targets: p99 ≤ 3 × the bare relay's p99; ≥ 2,000 acknowledged edits/s.
  */
 import { execSync } from 'node:child_process'
@@ -168,7 +168,7 @@ async function tributary(relay: Peers[]) {
 }
 
 sh('bash scripts/pg.sh start')
-sh('bash scripts/pg.sh ensure-db tributary_bench')
+sh('bash scripts/pg.sh fresh-db tributary_bench') // nothing left from earlier runs
 sh('node --import tsx scripts/migrate.ts')
 const bare = await bareRelay()
 const result = await tributary(bare.peers)

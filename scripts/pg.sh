@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # Private PostgreSQL cluster on 127.0.0.1 only. Works as root (through the postgres user) or as a
-# normal user. Usage: bash scripts/pg.sh start|stop|status|ensure-db NAME
+# normal user. Usage: bash scripts/pg.sh start|stop|status|ensure-db NAME|fresh-db NAME|destroy
 #   PGPORT   port (default 54329, a non-default port so a system PostgreSQL is never touched)
 #   PGBASE   folder for the cluster (default .data/, or /tmp/... when postgres cannot reach it)
 set -euo pipefail
@@ -45,6 +45,15 @@ ensure_db() {
     as_pg "$PGBIN/createdb" -h 127.0.0.1 -p "$PGPORT" -U postgres "$name"
 }
 
+# Drops NAME (closing its connections) and creates it empty: for benchmarks that must not
+# inherit what earlier runs wrote.
+fresh_db() {
+  local name="$1"
+  as_pg "$PGBIN/psql" -h 127.0.0.1 -p "$PGPORT" -U postgres -d postgres -qc \
+    "DROP DATABASE IF EXISTS \"$name\" WITH (FORCE)"
+  as_pg "$PGBIN/createdb" -h 127.0.0.1 -p "$PGPORT" -U postgres "$name"
+}
+
 stop() {
   if [ -s "$PGDATA/PG_VERSION" ] && as_pg "$PGBIN/pg_ctl" -D "$PGDATA" status >/dev/null 2>&1; then
     as_pg "$PGBIN/pg_ctl" -D "$PGDATA" -m fast -w stop >/dev/null && echo "PostgreSQL stopped"
@@ -58,6 +67,7 @@ case "${1:-start}" in
   stop) stop ;;
   status) status ;;
   ensure-db) ensure_db "$2" ;;
+  fresh-db) fresh_db "$2" ;;
   destroy) destroy ;;
-  *) echo "usage: $0 start|stop|status|ensure-db NAME|destroy" >&2; exit 2 ;;
+  *) echo "usage: $0 start|stop|status|ensure-db NAME|fresh-db NAME|destroy" >&2; exit 2 ;;
 esac

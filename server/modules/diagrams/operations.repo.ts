@@ -177,8 +177,8 @@ export async function appendIfCurrent(
   const name = state.document.name
   const result = await preparedQuery<{ at: Date; updated: number }>(
     db,
-    snapshot ? 'append-if-current-with-snapshot' : 'append-if-current',
-    snapshot ? APPEND_WITH_SNAPSHOT : APPEND,
+    'append-if-current',
+    APPEND,
     [
       JSON.stringify(state.document),
       state.revision,
@@ -189,15 +189,17 @@ export async function appendIfCurrent(
       baseRevision,
       JSON.stringify(roles),
       JSON.stringify(rows.map(({ diagram_id: _d, ...row }) => row)),
+      snapshot,
     ],
   )
   const row = result.rows[0]!
   return row.updated === 1 ? row.at : null
 }
 
-// appendIfCurrent's statement; $4 is the trimmed name, $5 the name as written.
-const APPEND_STATEMENT = (snapshot: boolean) =>
-  `WITH upd AS (
+// appendIfCurrent's statement; $4 is the trimmed name, $5 the name as written, $10 whether to
+// keep a snapshot. One statement for both cases, so each connection plans it once: a second
+// shape used every hundredth commit was planned afresh each time and made the slowest edits.
+const APPEND = `WITH upd AS (
      UPDATE diagrams AS d SET document = $1::jsonb, revision = $2::int, updated_by = $3::uuid,
        updated_at = now(),
        -- as the locked path: the row takes the document's name when that differs
@@ -213,15 +215,9 @@ const APPEND_STATEMENT = (snapshot: boolean) =>
      FROM upd, jsonb_to_recordset($9::jsonb) AS r(revision int, client_op_id text, author_id uuid,
        source text, restored_from int, op jsonb)
      RETURNING 1
-   )${
-     snapshot
-       ? `, snap AS (
+   ), snap AS (
      INSERT INTO diagram_snapshots (diagram_id, revision, document)
-     SELECT id, revision, $1::jsonb FROM upd -- the parameter: returning the row's copy costs more
+     SELECT id, revision, $1::jsonb FROM upd WHERE $10::boolean -- the parameter: cheaper than the row's copy
      ON CONFLICT (diagram_id, revision) DO NOTHING
-   )`
-       : ''
-   }
+   )
    SELECT now() AS at, (SELECT count(*) FROM upd)::int AS updated`
-const APPEND = APPEND_STATEMENT(false)
-const APPEND_WITH_SNAPSHOT = APPEND_STATEMENT(true)
