@@ -41,13 +41,18 @@ export function membersOf(diagramId: string, sockets: readonly { data: SocketDat
   return [...byUser.values()].sort((a, b) => a.name.localeCompare(b.name))
 }
 
+/** How long to wait for other server processes' sockets before drawing presence without them. */
+const PRESENCE_WAIT_MS = 1000
+
 /** Sends everyone in the room the current member list. */
 export async function broadcastPresence(ctx: RealtimeContext, diagramId: string): Promise<void> {
   if (ctx.closing) return
   const room = roomOf(diagramId)
   let sockets
   try {
-    sockets = await ctx.io.in(room).fetchSockets()
+    // A process that ended without saying so stays counted for ~10 s (adapter heartbeat); waiting
+    // the adapter's default 5 s for its answer held every presence change back, so wait 1 s.
+    sockets = await ctx.io.in(room).timeout(PRESENCE_WAIT_MS).fetchSockets()
   } catch {
     // Another process did not answer in time: show who this process knows about.
     sockets = await ctx.io.local.in(room).fetchSockets()

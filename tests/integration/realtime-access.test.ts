@@ -94,6 +94,28 @@ describe('presence', () => {
       'leave on disconnect',
     )
   })
+
+  it('still changes within a second or two when another server process went away unannounced', async () => {
+    // A heartbeat from a process that then says nothing more: the adapter counts it for ~10 s.
+    const ghost = { uid: `ghost-${Date.now()}`, nsp: '/', type: 2 }
+    await srv.db.raw('SELECT pg_notify(?, ?)', ['socket.io#/', JSON.stringify(ghost)])
+    await new Promise((resolve) => setTimeout(resolve, 300))
+    expect(await srv.realtime.io.of('/').adapter.serverCount()).toBeGreaterThan(1)
+    const a = client(owner)
+    const b = client(editor)
+    await waitUntil(
+      () => !!a.presence?.members.some((m) => m.userId === editor.user.id),
+      'both present',
+    )
+    const left = Date.now()
+    b.close()
+    await waitUntil(
+      () => !a.presence!.members.some((m) => m.userId === editor.user.id),
+      'leave shown',
+      8000,
+    )
+    expect(Date.now() - left).toBeLessThan(3000)
+  })
 })
 
 describe('access and limits', () => {
