@@ -71,7 +71,7 @@ export class Engine {
    * at the hot limit: a pipe's sizes start at capStart.
    */
   readonly capacity: Float64Array
-  /** Per engine: load → flow, flow term and velocity size (demand-memo.ts). */
+  /** Per engine: (load, curve, sizing class) → flow, base size, friction per metre (demand-memo.ts). */
   readonly memo: DemandMemo
   /** Water viscosity (m²/s) and density (kg/m³) in cold and hot pipes, for Darcy-Weisbach. */
   readonly water: { cold: { nu: number; rho: number }; hot: { nu: number; rho: number } }
@@ -113,8 +113,8 @@ export class Engine {
   /** Set once any node has flush valves / equipment flow: until then those sums stay zero. */
   valvesOn = false
   equipmentOn = false
-  // Per pipe: results, interleaved (pipe-record.ts): loads, flows, losses, pressures, margins
-  // in `fo`; sizing class, budget enlargement, size and flags in `io`.
+  // Per pipe: results, interleaved (pipe-record.ts): flow, friction and residual pressure in
+  // `fo`; sizing class, budget enlargement, size and flags in `io`.
   readonly fo: Float64Array
   readonly io: Int32Array
   /** Probable flow of the fixtures alone, L/s: written once some equipment has a flow. */
