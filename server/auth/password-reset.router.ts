@@ -21,28 +21,41 @@ export function passwordResetRouter(db: Db, mailer: Mailer, origin: string, limi
     legacyHeaders: false,
     handler: (_req, res) => {
       res.status(429).json({
-        error: { code: 'too_many_attempts', message: 'Too many reset requests; wait a few minutes' },
+        error: {
+          code: 'too_many_attempts',
+          message: 'Too many reset requests; wait a few minutes',
+        },
       })
     },
   })
 
-  router.post('/request', limiter, validateBody(requestPasswordResetBodySchema), async (req, res) => {
-    await resets.requestPasswordReset(db, mailer, origin, req.body.email)
+  router.post('/request', limiter, validateBody(requestPasswordResetBodySchema), (req, res) => {
+    // The answer goes out before any lookup or mail, so its timing says nothing about whether the
+    // address has an account (an SMTP conversation takes long enough to be measured).
     res.status(202).json({ ok: true })
+    resets.requestPasswordReset(db, mailer, origin, req.body.email).catch((error: unknown) => {
+      console.error('password reset mail failed:', error)
+    })
   })
 
   router.get('/:token', async (req, res) => {
     const token = tokenSchema.safeParse(req.params.token)
-    if (!token.success) throw badRequest(`token: ${token.error.issues[0]!.message}`, [
-      { path: 'token', message: token.error.issues[0]!.message },
-    ])
+    if (!token.success)
+      throw badRequest(`token: ${token.error.issues[0]!.message}`, [
+        { path: 'token', message: token.error.issues[0]!.message },
+      ])
     res.json(await resets.previewPasswordReset(db, token.data))
   })
 
-  router.post('/complete', limiter, validateBody(completePasswordResetBodySchema), async (req, res) => {
-    await resets.completePasswordReset(db, req.body.token, req.body.password, req.sessionID)
-    res.status(204).end()
-  })
+  router.post(
+    '/complete',
+    limiter,
+    validateBody(completePasswordResetBodySchema),
+    async (req, res) => {
+      await resets.completePasswordReset(db, req.body.token, req.body.password, req.sessionID)
+      res.status(204).end()
+    },
+  )
 
   return router
 }

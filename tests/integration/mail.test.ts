@@ -92,7 +92,12 @@ describe('the local fake SMTP server', () => {
       .post('/api/auth/password-reset/request')
       .send({ email: adminUser.email })
       .expect(202)
-    const res = await admin.get('/api/dev/mail').query({ to: adminUser.email }).expect(200)
+    // The request answers before the mail goes out: wait for it.
+    let res = await admin.get('/api/dev/mail').query({ to: adminUser.email }).expect(200)
+    for (let i = 0; i < 100 && res.body.messages.length === 0; i++) {
+      await new Promise((resolve) => setTimeout(resolve, 50))
+      res = await admin.get('/api/dev/mail').query({ to: adminUser.email }).expect(200)
+    }
     expect(res.body.messages[0]).toMatchObject({
       to: [adminUser.email],
       subject: 'Choose a new Tributary password',
