@@ -17,8 +17,9 @@ const toCapturedMail = (row: CapturedMailRow): CapturedMail => ({
 })
 
 /**
- * Mounted at /api/dev/mail: what the local fake SMTP server received, for organisation admins.
- * Outside production only; in production every route but `access` answers 404.
+ * Mounted at /api/dev/mail: what the local fake SMTP server received, for organisation admins,
+ * each seeing only mail to people of their organisations (captured-mail.repo.ts). Outside
+ * production only; in production every route but `access` answers 404.
  */
 export function mailboxRouter(db: Db, production: boolean): Router {
   const router = Router()
@@ -35,7 +36,8 @@ export function mailboxRouter(db: Db, production: boolean): Router {
       throw forbidden('Only organisation admins may read captured mail')
     }
     const to = typeof req.query.to === 'string' ? req.query.to : undefined
-    res.json({ messages: (await listCapturedMail(db, { to })).map(toCapturedMail) })
+    const messages = await listCapturedMail(db, { viewerId: userId(req), to })
+    res.json({ messages: messages.map(toCapturedMail) })
   })
 
   return router

@@ -33,7 +33,8 @@ function splitPart(raw: string): Part {
   const headers = new Map<string, string>()
   for (const line of head.replace(/\r?\n[ \t]+/g, ' ').split(/\r?\n/)) {
     const colon = line.indexOf(':')
-    if (colon > 0) headers.set(line.slice(0, colon).trim().toLowerCase(), line.slice(colon + 1).trim())
+    if (colon > 0)
+      headers.set(line.slice(0, colon).trim().toLowerCase(), line.slice(colon + 1).trim())
   }
   return { headers, body }
 }
@@ -59,8 +60,10 @@ function collectBodies(part: Part, found: { text: string; html: string }) {
   if (mediaType !== 'text/plain' && mediaType !== 'text/html') return
   const encoding = (part.headers.get('content-transfer-encoding') ?? '7bit').toLowerCase()
   const decoded = decodeBytes(toBytes(part.body, encoding), param(type, 'charset') ?? 'utf-8')
-  if (mediaType === 'text/plain' && !found.text) found.text = decoded.replace(/\r\n/g, '\n').trimEnd()
-  if (mediaType === 'text/html' && !found.html) found.html = decoded.replace(/\r\n/g, '\n').trimEnd()
+  if (mediaType === 'text/plain' && !found.text)
+    found.text = decoded.replace(/\r\n/g, '\n').trimEnd()
+  if (mediaType === 'text/html' && !found.html)
+    found.html = decoded.replace(/\r\n/g, '\n').trimEnd()
 }
 
 function toBytes(body: string, encoding: string): Buffer {
@@ -98,11 +101,14 @@ export function decodeWords(value: string): string {
   const text = /[^ -~\t]/.test(value) ? decodeBytes(Buffer.from(value, 'latin1'), 'utf-8') : value
   return text
     .replace(/(\?=)\s+(=\?)/g, '$1$2')
-    .replace(/=\?([^?]+)\?([BbQq])\?([^?]*)\?=/g, (_all, charset: string, kind: string, data: string) => {
-      const bytes =
-        kind.toUpperCase() === 'B'
-          ? Buffer.from(data, 'base64')
-          : fromQuotedPrintable(data.replace(/_/g, ' '))
-      return decodeBytes(bytes, charset)
-    })
+    .replace(
+      /=\?([^?]+)\?([BbQq])\?([^?]*)\?=/g,
+      (_all, charset: string, kind: string, data: string) => {
+        const bytes =
+          kind.toUpperCase() === 'B'
+            ? Buffer.from(data, 'base64')
+            : fromQuotedPrintable(data.replace(/_/g, ' '))
+        return decodeBytes(bytes, charset)
+      },
+    )
 }

@@ -104,6 +104,15 @@ describe('the local fake SMTP server', () => {
     })
     expect((await admin.get('/api/dev/mail/access').expect(200)).body).toEqual({ available: true })
 
+    // Another self-registered user administers only a personal organisation: their own mail only.
+    const stranger = supertest.agent(t.app)
+    const strangerUser = await signUp(stranger, 'Curious Stranger')
+    const seen = (await stranger.get('/api/dev/mail').expect(200)).body.messages as {
+      to: string[]
+    }[]
+    expect(seen.flatMap((m) => m.to)).not.toContain(adminUser.email)
+    expect(seen.every((m) => m.to.includes(strangerUser.email))).toBe(true)
+
     // An invited newcomer belongs to no organisation as admin.
     const plain = supertest.agent(t.app)
     const user = await signUp(plain)
