@@ -22,10 +22,10 @@ export interface ScheduleSort {
 
 // Fixed widths keep the virtual rows aligned with the header and give scroll-x its total.
 const WIDTHS: Record<ScheduleColumnKey, number> = {
-  id: 110,
+  id: 128,
   from: 170,
   to: 170,
-  system: 80,
+  system: 96,
   load: 90,
   closets: 100,
   urinals: 100,
