@@ -2,8 +2,7 @@ import { defineConfig, devices } from '@playwright/test'
 import { CHROMIUM_ARGS, CHROMIUM_EXECUTABLE } from './e2e/chromium'
 
 const port = Number(process.env.E2E_PORT ?? 3100)
-const databaseUrl =
-  process.env.E2E_DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/tributary'
+const databaseUrl = process.env.E2E_DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/tributary'
 
 export default defineConfig({
   testDir: 'e2e',

@@ -9,7 +9,8 @@ export function editorBenchDiagram(targetNodes: number): Diagram {
   const doc = riserTreeDiagram(targetNodes)
   const children = new Map<string, string[]>()
   for (const pipe of doc.pipes) {
-    if (pipe.system !== 'cold' && doc.pipes.some((p) => p.to === pipe.to && p.system === 'cold')) continue
+    if (pipe.system !== 'cold' && doc.pipes.some((p) => p.to === pipe.to && p.system === 'cold'))
+      continue
     children.set(pipe.from, [...(children.get(pipe.from) ?? []), pipe.to])
   }
   const depthOf = new Map<string, number>([['supply', 0]])

@@ -34,13 +34,30 @@ test('a designer grows a branch, sees every pipe up to the supply change, undoes
 
   // Every label shows what the command-line calculation prints for the same document.
   const cli = JSON.parse(
-    execFileSync('node', ['--import', 'tsx', 'scripts/calc.ts', 'tests/fixtures/diagrams/fernhollow-hall.json', '--json'], {
-      encoding: 'utf8',
-    }),
-  ) as { pipes: { id: string; load: number; flowLps: number; nominal: string; velocityMps: number }[] }
+    execFileSync(
+      'node',
+      [
+        '--import',
+        'tsx',
+        'scripts/calc.ts',
+        'tests/fixtures/diagrams/fernhollow-hall.json',
+        '--json',
+      ],
+      {
+        encoding: 'utf8',
+      },
+    ),
+  ) as {
+    pipes: { id: string; load: number; flowLps: number; nominal: string; velocityMps: number }[]
+  }
   expect(cli.pipes).toHaveLength(fernhollowHallDiagram.pipes.length)
   for (const p of cli.pipes) {
-    const expected = [formatLoad(p.load), formatFlow(p.flowLps, 'si'), formatNominal(p.nominal, 'si'), formatVelocity(p.velocityMps, 'si')]
+    const expected = [
+      formatLoad(p.load),
+      formatFlow(p.flowLps, 'si'),
+      formatNominal(p.nominal, 'si'),
+      formatVelocity(p.velocityMps, 'si'),
+    ]
     expect(before[p.id], p.id).toBe(expected.join(' · '))
   }
   await page.screenshot({ path: 'test-results/screens/editor-demo.png' })
@@ -73,7 +90,10 @@ test('a designer grows a branch, sees every pipe up to the supply change, undoes
   // The schedule lists every pipe and exports CSV in the display units.
   await page.getByTestId('view-schedule').click()
   await expect(page.getByTestId('pipe-schedule')).toContainText('c-service')
-  const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('export-csv').click()])
+  const [download] = await Promise.all([
+    page.waitForEvent('download'),
+    page.getByTestId('export-csv').click(),
+  ])
   const csv = await readFile((await download.path())!, 'utf8')
   expect(csv.split('\n')[0]).toMatch(/gpm/)
   for (const pipe of fernhollowHallDiagram.pipes) expect(csv).toContain(pipe.id)

@@ -6,7 +6,9 @@ import { SignInPage } from './pages/sign-in.page'
 
 const PROJECT = 'Fernhollow Community Hall'
 
-test('the owner invites a reviewer, who opens the e-mail, joins and sees the project', async ({ browser }) => {
+test('the owner invites a reviewer, who opens the e-mail, joins and sees the project', async ({
+  browser,
+}) => {
   const reviewerEmail = `reviewer-${Date.now()}@example.test`
   const owner = await browser.newPage()
   const consoleErrors: string[] = []
@@ -25,7 +27,9 @@ test('the owner invites a reviewer, who opens the e-mail, joins and sees the pro
   await mailbox.open()
   const link = await mailbox.linkInMessageTo(reviewerEmail)
   expect(link).toMatch(/\/invitations\/[A-Za-z0-9_-]{43}$/)
-  await expect(owner.getByTestId('mailbox-message')).toContainText('invited you to Fernhollow Community Hall')
+  await expect(owner.getByTestId('mailbox-message')).toContainText(
+    'invited you to Fernhollow Community Hall',
+  )
   await owner.screenshot({ path: 'test-results/screens/mailbox.png' })
 
   // The reviewer follows the link in a browser of their own.
@@ -51,8 +55,12 @@ test('the owner invites a reviewer, who opens the e-mail, joins and sees the pro
   await members.open(PROJECT)
   await expect(members.row(reviewerEmail)).toContainText('Robin Vasquez-Hale')
   await owner.getByTestId('tab-activity').click()
-  await expect(owner.getByTestId('activity-list')).toContainText('Robin Vasquez-Hale accepted the invitation and joined as reviewer')
-  await expect(owner.getByTestId('activity-list')).toContainText(`Avery Lindqvist invited ${reviewerEmail} as reviewer`)
+  await expect(owner.getByTestId('activity-list')).toContainText(
+    'Robin Vasquez-Hale accepted the invitation and joined as reviewer',
+  )
+  await expect(owner.getByTestId('activity-list')).toContainText(
+    `Avery Lindqvist invited ${reviewerEmail} as reviewer`,
+  )
   await owner.screenshot({ path: 'test-results/screens/activity.png' })
   // The first /api/auth/me before sign-in answers 401 by design.
   expect(consoleErrors.filter((e) => !e.includes('401'))).toEqual([])

@@ -52,7 +52,11 @@ export function createApp(env: Env, db: Db, pool: pg.Pool): AppParts {
   const opFeed = createOpFeed()
   const reviewFeed = createReviewFeed()
   const sessionHandlers: RequestHandler[] = [
-    sessionMiddleware(pool, env.SESSION_SECRET, env.NODE_ENV === 'production' && !!env.APP_ORIGIN?.startsWith('https')),
+    sessionMiddleware(
+      pool,
+      env.SESSION_SECRET,
+      env.NODE_ENV === 'production' && !!env.APP_ORIGIN?.startsWith('https'),
+    ),
     passport.session(),
   ]
   app.use('/api', ...sessionHandlers)

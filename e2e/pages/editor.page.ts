@@ -33,7 +33,9 @@ export class EditorPage {
     return this.page.evaluate(() => {
       const out: Record<string, string> = {}
       for (const el of document.querySelectorAll<HTMLElement>('[data-testid^="pipe-label-"]')) {
-        out[el.dataset.testid!.slice('pipe-label-'.length)] = el.innerText.replace(/\s+/g, ' ').trim()
+        out[el.dataset.testid!.slice('pipe-label-'.length)] = el.innerText
+          .replace(/\s+/g, ' ')
+          .trim()
       }
       return out
     })
@@ -44,7 +46,9 @@ export class EditorPage {
   }
 
   async expectSaved() {
-    await expect(this.page.getByTestId('save-state')).toHaveAttribute('data-state', 'saved', { timeout: 15_000 })
+    await expect(this.page.getByTestId('save-state')).toHaveAttribute('data-state', 'saved', {
+      timeout: 15_000,
+    })
   }
 }
 
@@ -53,7 +57,9 @@ export class CanvasGestures {
   constructor(readonly page: Page) {}
 
   private handle(nodeId: string, handleId: string): Locator {
-    return this.page.locator(`.vue-flow__node[data-id="${nodeId}"] .vue-flow__handle[data-handleid="${handleId}"]`)
+    return this.page.locator(
+      `.vue-flow__node[data-id="${nodeId}"] .vue-flow__handle[data-handleid="${handleId}"]`,
+    )
   }
 
   /** Draws a pipe by dragging from one handle to another, as a user does. */

@@ -14,7 +14,9 @@ export class MembersPage {
   async invite(email: string, role: 'owner' | 'editor' | 'reviewer' | 'viewer') {
     await this.page.getByTestId('invite-email').fill(email)
     await this.page.getByTestId('invite-role').click()
-    await this.page.locator('.n-base-select-option', { hasText: new RegExp(`^${role}$`, 'i') }).click()
+    await this.page
+      .locator('.n-base-select-option', { hasText: new RegExp(`^${role}$`, 'i') })
+      .click()
     await this.page.getByTestId('invite-submit').click()
     await expect(this.page.getByTestId('pending-invitations')).toContainText(email)
   }

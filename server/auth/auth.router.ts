@@ -11,7 +11,11 @@ import { createUser, toUser } from '../modules/users/users.service.ts'
 const logIn = (req: Request, user: Express.User) =>
   new Promise<void>((resolve, reject) => req.logIn(user, (err) => (err ? reject(err) : resolve())))
 
-export function authRouter(db: Db, passport: ReturnType<typeof createPassport>, signInLimit: number): Router {
+export function authRouter(
+  db: Db,
+  passport: ReturnType<typeof createPassport>,
+  signInLimit: number,
+): Router {
   const router = Router()
   const signInLimiter = rateLimit({
     windowMs: 15 * 60 * 1000,
@@ -20,7 +24,10 @@ export function authRouter(db: Db, passport: ReturnType<typeof createPassport>, 
     legacyHeaders: false,
     handler: (_req, res) => {
       res.status(429).json({
-        error: { code: 'too_many_attempts', message: 'Too many sign-in attempts; wait a few minutes' },
+        error: {
+          code: 'too_many_attempts',
+          message: 'Too many sign-in attempts; wait a few minutes',
+        },
       })
     },
   })

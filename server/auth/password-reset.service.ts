@@ -22,9 +22,18 @@ export async function requestPasswordReset(db: Db, mailer: Mailer, origin: strin
   const { token, hash } = newToken()
   const expiresAt = new Date(Date.now() + PASSWORD_RESET_LIFETIME_MS)
   await db.transaction(async (trx) => {
-    await repo.insertPasswordReset(trx, { user_id: user.id, token_hash: hash, expires_at: expiresAt })
+    await repo.insertPasswordReset(trx, {
+      user_id: user.id,
+      token_hash: hash,
+      expires_at: expiresAt,
+    })
     await mailer.send(
-      passwordResetMail({ to: user.email, name: user.name, link: `${origin}/reset-password/${token}`, expiresAt }),
+      passwordResetMail({
+        to: user.email,
+        name: user.name,
+        link: `${origin}/reset-password/${token}`,
+        expiresAt,
+      }),
     )
   })
 }

@@ -12,7 +12,11 @@ const envSchema = z.object({
   /** Public origin of the app (links in e-mail, socket Origin check). */
   APP_ORIGIN: z.string().optional(),
   /** Co-editing limits (server/realtime): largest socket message, bytes. */
-  REALTIME_MAX_BYTES: z.coerce.number().int().min(1024).default(256 * 1024),
+  REALTIME_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .min(1024)
+    .default(256 * 1024),
   /** Ops and presence messages a socket may sustain per second, and the burst it may send. */
   REALTIME_RATE: z.coerce.number().positive().default(200),
   REALTIME_BURST: z.coerce.number().int().positive().default(400),

@@ -35,10 +35,7 @@ export const updateAccountBodySchema = z
 export type UpdateAccountBody = z.infer<typeof updateAccountBodySchema>
 
 const newPassword = () =>
-  z
-    .string()
-    .min(10, 'must be at least 10 characters')
-    .max(200, 'must be at most 200 characters')
+  z.string().min(10, 'must be at least 10 characters').max(200, 'must be at most 200 characters')
 
 export const changePasswordBodySchema = z.object({
   currentPassword: z.string().min(1, 'is required').max(200),

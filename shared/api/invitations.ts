@@ -35,4 +35,9 @@ export const acceptedInvitationBodySchema = z.object({
 })
 
 /** Error codes of a link that cannot be used, so the client can show a clear page. */
-export const LINK_ERROR_CODES = ['link_expired', 'link_used', 'link_revoked', 'link_unknown'] as const
+export const LINK_ERROR_CODES = [
+  'link_expired',
+  'link_used',
+  'link_revoked',
+  'link_unknown',
+] as const

@@ -165,5 +165,8 @@ const input: DiagramInput = {
 /** The Fernhollow Community Hall demo diagram (parsed, defaults filled in). */
 export const fernhollowHallDiagram: Diagram = diagramSchema.parse({
   ...input,
-  nodes: input.nodes.map((node) => ({ ...node, position: FERNHOLLOW_POSITIONS[node.id] ?? node.position })),
+  nodes: input.nodes.map((node) => ({
+    ...node,
+    position: FERNHOLLOW_POSITIONS[node.id] ?? node.position,
+  })),
 })

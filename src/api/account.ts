@@ -13,8 +13,17 @@ export const updateAccount = (body: UpdateAccountBody) =>
 export const changePassword = (body: ChangePasswordBody) =>
   requestVoid('/account/password', { method: 'POST', body })
 export const requestPasswordReset = (email: string) =>
-  request('/auth/password-reset/request', z.object({ ok: z.boolean() }), { method: 'POST', body: { email } })
+  request('/auth/password-reset/request', z.object({ ok: z.boolean() }), {
+    method: 'POST',
+    body: { email },
+  })
 export const previewPasswordReset = (token: string) =>
-  request(`/auth/password-reset/${encodeURIComponent(token)}`, passwordResetPreviewBodySchema, { quiet401: true })
+  request(`/auth/password-reset/${encodeURIComponent(token)}`, passwordResetPreviewBodySchema, {
+    quiet401: true,
+  })
 export const completePasswordReset = (token: string, password: string) =>
-  requestVoid('/auth/password-reset/complete', { method: 'POST', body: { token, password }, quiet401: true })
+  requestVoid('/auth/password-reset/complete', {
+    method: 'POST',
+    body: { token, password },
+    quiet401: true,
+  })

@@ -15,9 +15,10 @@ export const getDiagram = (projectId: string, id: string) =>
 export const createDiagram = (projectId: string, body: { name: string; document?: Diagram }) =>
   request(base(projectId), diagramRecordBodySchema, { method: 'POST', body }).then((b) => b.diagram)
 export const renameDiagram = (projectId: string, id: string, name: string) =>
-  request(`${base(projectId)}/${id}`, diagramRecordBodySchema, { method: 'PATCH', body: { name } }).then(
-    (b) => b.diagram,
-  )
+  request(`${base(projectId)}/${id}`, diagramRecordBodySchema, {
+    method: 'PATCH',
+    body: { name },
+  }).then((b) => b.diagram)
 export const duplicateDiagram = (projectId: string, id: string) =>
   request(`${base(projectId)}/${id}/duplicate`, diagramRecordBodySchema, { method: 'POST' }).then(
     (b) => b.diagram,

@@ -62,7 +62,12 @@ async function send(path: string, { method = 'GET', body, quiet401 }: RequestOpt
   if (res.ok) return res
   const parsed = apiErrorBodySchema.safeParse(await res.json().catch(() => null))
   const error = parsed.success
-    ? new ApiError(res.status, parsed.data.error.code, parsed.data.error.message, parsed.data.error.fields)
+    ? new ApiError(
+        res.status,
+        parsed.data.error.code,
+        parsed.data.error.message,
+        parsed.data.error.fields,
+      )
     : new ApiError(res.status, 'http', `The server answered ${res.status}`)
   if (res.status === 401 && !quiet401) onUnauthorized()
   throw error

@@ -7,9 +7,9 @@ import { userSchema } from '@shared/api/schemas'
 import { request } from './http'
 
 export const previewInvitation = (token: string) =>
-  request(`/invitations/${encodeURIComponent(token)}`, invitationPreviewBodySchema, { quiet401: true }).then(
-    (b) => b.invitation,
-  )
+  request(`/invitations/${encodeURIComponent(token)}`, invitationPreviewBodySchema, {
+    quiet401: true,
+  }).then((b) => b.invitation)
 export const acceptInvitation = (token: string) =>
   request('/invitations/accept', acceptedInvitationBodySchema, { method: 'POST', body: { token } })
 export const signUpFromInvitation = (body: InvitationSignUpBody) =>

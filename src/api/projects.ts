@@ -5,7 +5,8 @@ import { request, requestVoid } from './http'
 const projectBody = z.object({ project: projectSchema })
 
 export const listProjects = () => request('/projects', projectListSchema).then((b) => b.projects)
-export const getProject = (id: string) => request(`/projects/${id}`, projectBody).then((b) => b.project)
+export const getProject = (id: string) =>
+  request(`/projects/${id}`, projectBody).then((b) => b.project)
 export const createProject = (body: { name: string; description?: string; units?: 'si' | 'us' }) =>
   request('/projects', projectBody, { method: 'POST', body }).then((b) => b.project)
 export const updateProject = (

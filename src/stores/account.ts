@@ -24,14 +24,16 @@ export const useAccountStore = defineStore('account', () => {
   async function update(body: UpdateAccountBody) {
     const saved = await api.updateAccount(body)
     account.value = saved
-    if (auth.user) auth.user = { ...auth.user, name: saved.name, color: saved.color, units: saved.units }
+    if (auth.user)
+      auth.user = { ...auth.user, name: saved.name, color: saved.color, units: saved.units }
     return saved
   }
 
   const changePassword = (body: ChangePasswordBody) => api.changePassword(body)
   const requestReset = (email: string) => api.requestPasswordReset(email)
   const previewReset = (token: string) => api.previewPasswordReset(token)
-  const completeReset = (token: string, password: string) => api.completePasswordReset(token, password)
+  const completeReset = (token: string, password: string) =>
+    api.completePasswordReset(token, password)
   const previewInvitation = (token: string) => invitations.previewInvitation(token)
 
   /** Creates the account from an invitation; the new person is signed in and on the project. */

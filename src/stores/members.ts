@@ -33,7 +33,10 @@ export const useMembersStore = defineStore('members', () => {
 
   async function invite(id: string, body: InviteMemberBody) {
     const invitation = await api.inviteMember(id, body)
-    invitations.value = [invitation, ...invitations.value.filter((i) => i.email !== invitation.email)]
+    invitations.value = [
+      invitation,
+      ...invitations.value.filter((i) => i.email !== invitation.email),
+    ]
     return invitation
   }
 

@@ -43,7 +43,18 @@ export const useOrganisationsStore = defineStore('organisations', () => {
     members.value = []
   }
 
-  return { list, members, isAdminAnywhere, fetchAll, create, fetchMembers, addMember, changeRole, removeMember, dehydrate }
+  return {
+    list,
+    members,
+    isAdminAnywhere,
+    fetchAll,
+    create,
+    fetchMembers,
+    addMember,
+    changeRole,
+    removeMember,
+    dehydrate,
+  }
 })
 
 if (import.meta.hot) import.meta.hot.accept(acceptHMRUpdate(useOrganisationsStore, import.meta.hot))

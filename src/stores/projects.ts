@@ -38,7 +38,10 @@ export const useProjectsStore = defineStore('projects', () => {
     return project
   }
 
-  async function update(id: string, patch: { name?: string; description?: string; units?: 'si' | 'us' }) {
+  async function update(
+    id: string,
+    patch: { name?: string; description?: string; units?: 'si' | 'us' },
+  ) {
     const project = await api.updateProject(id, patch)
     byId.value = { ...byId.value, [id]: project }
     return project

@@ -11,5 +11,8 @@ export const escapeHtml = (text: string) => text.replace(/[&<>"']/g, (ch) => ENT
 
 /** Tagged template that escapes every interpolated value. */
 export function html(strings: TemplateStringsArray, ...values: (string | number)[]): string {
-  return strings.reduce((out, s, i) => out + s + (i < values.length ? escapeHtml(String(values[i])) : ''), '')
+  return strings.reduce(
+    (out, s, i) => out + s + (i < values.length ? escapeHtml(String(values[i])) : ''),
+    '',
+  )
 }

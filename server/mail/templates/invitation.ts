@@ -36,13 +36,18 @@ export function invitationMail(input: InvitationMailInput): OutgoingMail {
     `The link works once and expires on ${expires}.`,
     'If you did not expect this invitation, you can ignore this e-mail.',
   ].join('\n')
-  const body = html`<p>Hello,</p>
-<p><strong>${input.inviterName}</strong> (${input.organisationName}) invited you to the project
-<strong>${input.projectName}</strong> on Tributary as ${article(input.role)} <strong>${input.role}</strong>:
-you will be able to ${meaning}.</p>` +
+  const body =
+    html`<p>Hello,</p>
+      <p>
+        <strong>${input.inviterName}</strong> (${input.organisationName}) invited you to the project
+        <strong>${input.projectName}</strong> on Tributary as ${article(input.role)}
+        <strong>${input.role}</strong>: you will be able to ${meaning}.
+      </p>` +
     htmlButton(input.link, 'Accept the invitation') +
-    html`<p style="font-size:13px;color:#5b6770">The link works once and expires on ${expires}.
-If you did not expect this invitation, you can ignore this e-mail.</p>`
+    html`<p style="font-size:13px;color:#5b6770">
+      The link works once and expires on ${expires}. If you did not expect this invitation, you can
+      ignore this e-mail.
+    </p>`
   return { to: input.to, subject, text, html: htmlLayout(subject, body) }
 }
 

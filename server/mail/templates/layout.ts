@@ -13,8 +13,20 @@ ${body}
 
 /** A link styled as a button, with the address repeated for clients that hide buttons. */
 export function htmlButton(href: string, label: string): string {
-  return html`<p style="margin:22px 0"><a href="${href}" style="display:inline-block;background:#17405e;color:#ffffff;text-decoration:none;padding:10px 18px;border-radius:4px;font-weight:bold">${label}</a></p>
-<p style="font-size:13px;color:#5b6770">Or paste this address into your browser:<br><a href="${href}" style="color:#17405e;word-break:break-all">${href}</a></p>`
+  return html`<p style="margin:22px 0">
+      <a
+        href="${href}"
+        style="display:inline-block;background:#17405e;color:#ffffff;text-decoration:none;padding:10px 18px;border-radius:4px;font-weight:bold"
+        >${label}</a
+      >
+    </p>
+    <p style="font-size:13px;color:#5b6770">
+      Or paste this address into your browser:<br /><a
+        href="${href}"
+        style="color:#17405e;word-break:break-all"
+        >${href}</a
+      >
+    </p>`
 }
 
 /** Dates in e-mail are written out in UTC so every reader sees the same moment. */

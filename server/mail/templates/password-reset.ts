@@ -23,10 +23,11 @@ export function passwordResetMail(input: {
   ].join('\n')
   const body =
     html`<p>Hello ${input.name},</p>
-<p>Someone (we hope you) asked to reset the password of your Tributary account.</p>` +
+      <p>Someone (we hope you) asked to reset the password of your Tributary account.</p>` +
     htmlButton(input.link, 'Choose a new password') +
-    html`<p style="font-size:13px;color:#5b6770">The link works once and expires on ${expires}.
-Choosing a new password signs your account out everywhere else. If you did not ask for this,
-ignore this e-mail: your password stays.</p>`
+    html`<p style="font-size:13px;color:#5b6770">
+      The link works once and expires on ${expires}. Choosing a new password signs your account out
+      everywhere else. If you did not ask for this, ignore this e-mail: your password stays.
+    </p>`
   return { to: input.to, subject, text, html: htmlLayout(subject, body) }
 }

@@ -34,7 +34,12 @@ export async function updateAccount(db: Db, userId: string, body: UpdateAccountB
 }
 
 /** Sets a new password and signs the account out of every other session. */
-export async function setPassword(db: Db, userId: string, password: string, keepSid: string | undefined) {
+export async function setPassword(
+  db: Db,
+  userId: string,
+  password: string,
+  keepSid: string | undefined,
+) {
   const passwordHash = await hashPassword(password)
   await db.transaction(async (trx) => {
     await updateUserRow(trx, userId, { password_hash: passwordHash })

@@ -11,6 +11,8 @@ const COLUMN: Record<NotificationKind, 'notify_mentions' | 'notify_reviews'> = {
  * review decisions) call this first and stay silent for users who opted out.
  */
 export async function wantsEmail(db: Db, userId: string, kind: NotificationKind): Promise<boolean> {
-  const row = await db('users').where({ id: userId }).first<Record<string, boolean> | undefined>(COLUMN[kind])
+  const row = await db('users')
+    .where({ id: userId })
+    .first<Record<string, boolean> | undefined>(COLUMN[kind])
   return row?.[COLUMN[kind]] ?? false
 }

@@ -24,7 +24,11 @@ export interface TokenState {
 /** Throws the clear error for a link that cannot be used; returns when it can. */
 export function assertUsable(row: TokenState | undefined, what: 'invitation' | 'reset link'): void {
   if (!row) {
-    throw new HttpError(404, 'link_unknown', `This ${what} is not valid; check that you copied the whole link`)
+    throw new HttpError(
+      404,
+      'link_unknown',
+      `This ${what} is not valid; check that you copied the whole link`,
+    )
   }
   if (row.used_at) throw new HttpError(410, 'link_used', `This ${what} has already been used`)
   if (row.revoked_at) throw new HttpError(410, 'link_revoked', `This ${what} was withdrawn`)

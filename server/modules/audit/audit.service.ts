@@ -38,6 +38,10 @@ export function toAuditEvent(row: AuditEventRow): AuditEvent {
 }
 
 /** Newest first. */
-export async function projectActivity(db: Db, projectId: string, limit = 200): Promise<AuditEvent[]> {
+export async function projectActivity(
+  db: Db,
+  projectId: string,
+  limit = 200,
+): Promise<AuditEvent[]> {
   return (await listProjectEvents(db, projectId, limit)).map(toAuditEvent)
 }

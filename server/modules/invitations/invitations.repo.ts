@@ -24,7 +24,10 @@ export interface InvitationDetail extends InvitationRow {
 
 export async function insertInvitation(
   db: Db,
-  row: Pick<InvitationRow, 'project_id' | 'email' | 'role' | 'token_hash' | 'invited_by' | 'expires_at'>,
+  row: Pick<
+    InvitationRow,
+    'project_id' | 'email' | 'role' | 'token_hash' | 'invited_by' | 'expires_at'
+  >,
 ): Promise<InvitationRow> {
   const [inserted] = await db<InvitationRow>('invitations').insert(row).returning('*')
   return inserted!

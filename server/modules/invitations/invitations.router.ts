@@ -27,10 +27,15 @@ export function invitationsRouter(db: Db): Router {
     res.json({ invitation: await invitations.preview(db, token.data) })
   })
 
-  router.post('/accept', requireUser, validateBody(acceptInvitationBodySchema), async (req, res) => {
-    if (!req.user) throw unauthorized()
-    res.json(await invitations.accept(db, req.body.token, req.user))
-  })
+  router.post(
+    '/accept',
+    requireUser,
+    validateBody(acceptInvitationBodySchema),
+    async (req, res) => {
+      if (!req.user) throw unauthorized()
+      res.json(await invitations.accept(db, req.body.token, req.user))
+    },
+  )
 
   router.post('/sign-up', validateBody(invitationSignUpBodySchema), async (req, res) => {
     const { user, joined } = await invitations.signUpAndAccept(db, req.body)

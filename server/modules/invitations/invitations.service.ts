@@ -5,7 +5,12 @@ import type { Db } from '../../db/knex.ts'
 import { conflict, forbidden, notFound } from '../../errors.ts'
 import type { Mailer } from '../../mail/mailer.ts'
 import { invitationMail } from '../../mail/templates/invitation.ts'
-import { assertUsable, hashToken, INVITATION_LIFETIME_MS, newToken } from '../account/one-time-token.ts'
+import {
+  assertUsable,
+  hashToken,
+  INVITATION_LIFETIME_MS,
+  newToken,
+} from '../account/one-time-token.ts'
 import { recordAudit } from '../audit/audit.service.ts'
 import { isMemberByEmail } from '../members/members.repo.ts'
 import { addOrganisationMember } from '../organisations/organisations.repo.ts'
@@ -124,7 +129,10 @@ export async function accept(db: Db, token: string, user: { id: string; email: s
 }
 
 /** A new person creates their account (with the invited address) and joins in one step. */
-export async function signUpAndAccept(db: Db, body: InvitationSignUpBody): Promise<{
+export async function signUpAndAccept(
+  db: Db,
+  body: InvitationSignUpBody,
+): Promise<{
   user: UserRow
   joined: { projectId: string; role: ProjectRole }
 }> {

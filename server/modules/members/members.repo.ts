@@ -14,7 +14,9 @@ export const listProjectMembers = (db: Db, projectId: string) =>
   db('project_members as m')
     .join('users as u', 'u.id', 'm.user_id')
     .where('m.project_id', projectId)
-    .orderByRaw(`CASE m.role WHEN 'owner' THEN 0 WHEN 'editor' THEN 1 WHEN 'reviewer' THEN 2 ELSE 3 END`)
+    .orderByRaw(
+      `CASE m.role WHEN 'owner' THEN 0 WHEN 'editor' THEN 1 WHEN 'reviewer' THEN 2 ELSE 3 END`,
+    )
     .orderBy('u.name')
     .select<MemberRow[]>('m.user_id', 'u.name', 'u.email', 'u.color', 'm.role', 'm.created_at')
 

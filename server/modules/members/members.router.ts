@@ -20,7 +20,8 @@ export function membersRouter(db: Db): Router {
   const manage = requireProjectAction(db, 'members.manage')
   const ids = (params: Record<string, string | string[] | undefined>) => {
     const memberId = String(params.userId)
-    if (params.userId !== undefined && !UUID.test(memberId)) throw notFound('No such member of this project')
+    if (params.userId !== undefined && !UUID.test(memberId))
+      throw notFound('No such member of this project')
     return { projectId: String(params.projectId), memberId }
   }
 
@@ -36,7 +37,9 @@ export function membersRouter(db: Db): Router {
 
   router.patch('/:userId', manage, validateBody(changeMemberRoleBodySchema), async (req, res) => {
     const { projectId, memberId } = ids(req.params)
-    res.json({ member: await members.changeRole(db, userId(req), projectId, memberId, req.body.role) })
+    res.json({
+      member: await members.changeRole(db, userId(req), projectId, memberId, req.body.role),
+    })
   })
 
   router.delete('/:userId', manage, async (req, res) => {

@@ -66,7 +66,9 @@ async function lockedMember(db: Db, projectId: string, userId: string) {
   const roles = await repo.lockProjectRoles(db, projectId)
   const mine = roles.find((r) => r.user_id === userId)
   if (!mine) throw notFound('No such member of this project')
-  const user = await db('users').where({ id: userId }).first<{ name: string; email: string }>('name', 'email')
+  const user = await db('users')
+    .where({ id: userId })
+    .first<{ name: string; email: string }>('name', 'email')
   return {
     role: mine.role,
     owners: roles.filter((r) => r.role === 'owner').length,

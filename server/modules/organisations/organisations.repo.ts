@@ -31,8 +31,12 @@ const withRole = (db: Db, userId: string) =>
     .select<OrganisationWithRole[]>(
       'o.*',
       'm.role',
-      db.raw('(SELECT count(*)::int FROM organisation_members x WHERE x.organisation_id = o.id) AS member_count'),
-      db.raw('(SELECT count(*)::int FROM projects p WHERE p.organisation_id = o.id) AS project_count'),
+      db.raw(
+        '(SELECT count(*)::int FROM organisation_members x WHERE x.organisation_id = o.id) AS member_count',
+      ),
+      db.raw(
+        '(SELECT count(*)::int FROM projects p WHERE p.organisation_id = o.id) AS project_count',
+      ),
     )
 
 /** The user's organisations, the one joined first leading (it is the default for new projects). */
@@ -77,7 +81,14 @@ export const listOrganisationMembers = (db: Db, organisationId: string) =>
     .join('users as u', 'u.id', 'm.user_id')
     .where('m.organisation_id', organisationId)
     .orderBy('u.name')
-    .select<OrganisationMemberRow[]>('m.user_id', 'u.name', 'u.email', 'u.color', 'm.role', 'm.created_at')
+    .select<OrganisationMemberRow[]>(
+      'm.user_id',
+      'u.name',
+      'u.email',
+      'u.color',
+      'm.role',
+      'm.created_at',
+    )
 
 /** Roles of every member, locked until the transaction ends (last-admin checks). */
 export const lockOrganisationRoles = (db: Db, organisationId: string) =>
@@ -91,7 +102,10 @@ export const updateOrganisationRole = (
   organisationId: string,
   userId: string,
   role: OrganisationRole,
-) => db('organisation_members').where({ organisation_id: organisationId, user_id: userId }).update({ role })
+) =>
+  db('organisation_members')
+    .where({ organisation_id: organisationId, user_id: userId })
+    .update({ role })
 
 export const deleteOrganisationMember = (db: Db, organisationId: string, userId: string) =>
   db('organisation_members').where({ organisation_id: organisationId, user_id: userId }).delete()

@@ -30,21 +30,32 @@ export function organisationsRouter(db: Db): Router {
     const org = await db.transaction((trx) =>
       organisations.createOrganisation(trx, userId(req), req.body.name),
     )
-    res.status(201).json({ organisation: await organisations.getOrganisation(db, org.id, userId(req)) })
+    res
+      .status(201)
+      .json({ organisation: await organisations.getOrganisation(db, org.id, userId(req)) })
   })
 
   router.get('/:organisationId', member, async (req, res) => {
-    res.json({ organisation: await organisations.getOrganisation(db, ids(req).organisationId, userId(req)) })
+    res.json({
+      organisation: await organisations.getOrganisation(db, ids(req).organisationId, userId(req)),
+    })
   })
 
   router.get('/:organisationId/members', member, async (req, res) => {
     res.json({ members: await organisations.listMembers(db, ids(req).organisationId) })
   })
 
-  router.post('/:organisationId/members', admin, validateBody(addOrganisationMemberBodySchema), async (req, res) => {
-    const { organisationId } = ids(req)
-    res.status(201).json({ member: await organisations.addMember(db, userId(req), organisationId, req.body) })
-  })
+  router.post(
+    '/:organisationId/members',
+    admin,
+    validateBody(addOrganisationMemberBodySchema),
+    async (req, res) => {
+      const { organisationId } = ids(req)
+      res
+        .status(201)
+        .json({ member: await organisations.addMember(db, userId(req), organisationId, req.body) })
+    },
+  )
 
   router.patch(
     '/:organisationId/members/:userId',
@@ -53,7 +64,13 @@ export function organisationsRouter(db: Db): Router {
     async (req, res) => {
       const { organisationId, memberId } = ids(req)
       res.json({
-        member: await organisations.changeRole(db, userId(req), organisationId, memberId, req.body.role),
+        member: await organisations.changeRole(
+          db,
+          userId(req),
+          organisationId,
+          memberId,
+          req.body.role,
+        ),
       })
     },
   )

@@ -65,9 +65,12 @@ export async function addMember(
 ): Promise<OrganisationMember> {
   const user = await findUserByEmail(db, body.email)
   if (!user) {
-    throw new HttpError(404, 'not_found', 'email: no Tributary account uses this address; invite them to a project instead', [
-      { path: 'email', message: 'no Tributary account uses this address' },
-    ])
+    throw new HttpError(
+      404,
+      'not_found',
+      'email: no Tributary account uses this address; invite them to a project instead',
+      [{ path: 'email', message: 'no Tributary account uses this address' }],
+    )
   }
   await db.transaction(async (trx) => {
     if (await repo.findOrganisationRole(trx, organisationId, user.id)) {
@@ -114,7 +117,12 @@ export async function changeRole(
  * Removes someone (or lets them leave): they also leave the organisation's projects, which is
  * refused while they are the last owner of one.
  */
-export async function removeMember(db: Db, actorId: string, organisationId: string, userId: string) {
+export async function removeMember(
+  db: Db,
+  actorId: string,
+  organisationId: string,
+  userId: string,
+) {
   await db.transaction(async (trx) => {
     const roles = await repo.lockOrganisationRoles(trx, organisationId)
     const current = roles.find((r) => r.user_id === userId)
@@ -133,7 +141,9 @@ export async function removeMember(db: Db, actorId: string, organisationId: stri
       )
       .first<{ name: string } | undefined>('p.name')
     if (soleOwnerOf) {
-      throw conflict(`They are the last owner of "${soleOwnerOf.name}"; make someone else owner first`)
+      throw conflict(
+        `They are the last owner of "${soleOwnerOf.name}"; make someone else owner first`,
+      )
     }
     await trx('project_members')
       .where('user_id', userId)
@@ -150,7 +160,9 @@ export async function removeMember(db: Db, actorId: string, organisationId: stri
 }
 
 async function memberOf(db: Db, organisationId: string, userId: string) {
-  const row = (await repo.listOrganisationMembers(db, organisationId)).find((m) => m.user_id === userId)
+  const row = (await repo.listOrganisationMembers(db, organisationId)).find(
+    (m) => m.user_id === userId,
+  )
   if (!row) throw notFound('No such member of this organisation')
   return toOrganisationMember(row)
 }

@@ -27,9 +27,7 @@ const withRole = (db: Db, userId: string) =>
       'p.*',
       'm.role',
       'o.name as organisation_name',
-      db.raw(
-        `(SELECT count(*)::int FROM diagrams d WHERE d.project_id = p.id) AS diagram_count`,
-      ),
+      db.raw(`(SELECT count(*)::int FROM diagrams d WHERE d.project_id = p.id) AS diagram_count`),
     )
 
 export const listProjectsForUser = (db: Db, userId: string) =>
@@ -60,6 +58,9 @@ export const updateProjectRow = (
   db: Db,
   id: string,
   patch: Partial<Pick<ProjectRow, 'name' | 'description' | 'units'>>,
-) => db('projects').where({ id }).update({ ...patch, updated_at: db.fn.now() })
+) =>
+  db('projects')
+    .where({ id })
+    .update({ ...patch, updated_at: db.fn.now() })
 
 export const deleteProjectRow = (db: Db, id: string) => db('projects').where({ id }).delete()

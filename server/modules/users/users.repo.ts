@@ -30,6 +30,12 @@ export const updateUserRow = (
   db: Db,
   id: string,
   patch: Partial<
-    Pick<UserRow, 'name' | 'color' | 'units' | 'notify_mentions' | 'notify_reviews' | 'password_hash'>
+    Pick<
+      UserRow,
+      'name' | 'color' | 'units' | 'notify_mentions' | 'notify_reviews' | 'password_hash'
+    >
   >,
-) => db('users').where({ id }).update({ ...patch, updated_at: db.fn.now() })
+) =>
+  db('users')
+    .where({ id })
+    .update({ ...patch, updated_at: db.fn.now() })

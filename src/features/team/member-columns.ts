@@ -30,11 +30,15 @@ export function memberColumns(o: MemberColumnOptions): DataTableColumns<ProjectM
       key: 'name',
       render: (m) =>
         h('div', { class: 'member-cell' }, [
-          h(NAvatar, { round: true, size: 30, style: { backgroundColor: m.color } }, () => initialsOf(m.name)),
+          h(NAvatar, { round: true, size: 30, style: { backgroundColor: m.color } }, () =>
+            initialsOf(m.name),
+          ),
           h('div', null, [
             h('div', { class: 'member-name' }, [
               m.name,
-              m.userId === o.meId ? h(NTag, { size: 'tiny', bordered: false, style: 'margin-left:6px' }, () => 'you') : null,
+              m.userId === o.meId
+                ? h(NTag, { size: 'tiny', bordered: false, style: 'margin-left:6px' }, () => 'you')
+                : null,
             ]),
             h('div', { class: 'member-email' }, m.email),
           ]),
@@ -62,12 +66,22 @@ export function memberColumns(o: MemberColumnOptions): DataTableColumns<ProjectM
       width: 130,
       render: (m) => {
         if (m.userId === o.meId) {
-          return h(NButton, { size: 'small', tertiary: true, 'data-testid': 'leave-project', onClick: o.onLeave }, () => 'Leave')
+          return h(
+            NButton,
+            { size: 'small', tertiary: true, 'data-testid': 'leave-project', onClick: o.onLeave },
+            () => 'Leave',
+          )
         }
         return o.canManage
           ? h(
               NButton,
-              { size: 'small', tertiary: true, type: 'error', 'data-testid': `remove-${m.email}`, onClick: () => o.onRemove(m) },
+              {
+                size: 'small',
+                tertiary: true,
+                type: 'error',
+                'data-testid': `remove-${m.email}`,
+                onClick: () => o.onRemove(m),
+              },
               () => 'Remove',
             )
           : null

@@ -22,8 +22,13 @@ export function organisationColumns(o: {
       key: 'name',
       render: (m) =>
         h('div', { class: 'member-cell' }, [
-          h(NAvatar, { round: true, size: 28, style: { backgroundColor: m.color } }, () => initialsOf(m.name)),
-          h('div', null, [h('div', { class: 'member-name' }, m.name), h('div', { class: 'member-email' }, m.email)]),
+          h(NAvatar, { round: true, size: 28, style: { backgroundColor: m.color } }, () =>
+            initialsOf(m.name),
+          ),
+          h('div', null, [
+            h('div', { class: 'member-name' }, m.name),
+            h('div', { class: 'member-email' }, m.email),
+          ]),
         ]),
     },
     {
@@ -32,8 +37,17 @@ export function organisationColumns(o: {
       width: 160,
       render: (m) =>
         o.isAdmin
-          ? h(NSelect, { size: 'small', value: m.role, options: ORG_ROLES, onUpdateValue: (r: OrganisationRole) => o.onRole(m, r) })
-          : h(NTag, { size: 'small', bordered: false, type: m.role === 'admin' ? 'success' : 'default' }, () => m.role),
+          ? h(NSelect, {
+              size: 'small',
+              value: m.role,
+              options: ORG_ROLES,
+              onUpdateValue: (r: OrganisationRole) => o.onRole(m, r),
+            })
+          : h(
+              NTag,
+              { size: 'small', bordered: false, type: m.role === 'admin' ? 'success' : 'default' },
+              () => m.role,
+            ),
     },
     { title: 'Joined', key: 'joinedAt', width: 160, render: (m) => formatWhen(m.joinedAt) },
     {
@@ -42,8 +56,10 @@ export function organisationColumns(o: {
       width: 110,
       render: (m) =>
         o.isAdmin || m.userId === o.meId
-          ? h(NButton, { size: 'small', tertiary: true, type: 'error', onClick: () => o.onRemove(m) }, () =>
-              m.userId === o.meId ? 'Leave' : 'Remove',
+          ? h(
+              NButton,
+              { size: 'small', tertiary: true, type: 'error', onClick: () => o.onRemove(m) },
+              () => (m.userId === o.meId ? 'Leave' : 'Remove'),
             )
           : null,
     },

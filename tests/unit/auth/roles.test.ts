@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest'
-import { can, PROJECT_ACTIONS, type ProjectAction, type ProjectRole } from '../../../shared/auth/roles'
+import {
+  can,
+  PROJECT_ACTIONS,
+  type ProjectAction,
+  type ProjectRole,
+} from '../../../shared/auth/roles'
 
 // The permission matrix the server enforces; a change here is a change of product policy.
 const EXPECTED: Record<ProjectRole, ProjectAction[]> = {

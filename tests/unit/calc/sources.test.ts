@@ -4,10 +4,22 @@ import { describeSource } from '../../../shared/calc/sources.ts'
 
 describe('readable citations', () => {
   it.each([
-    ['UPC 2018 Table A 103.1, C [S13]', 'UPC 2018 Table A 103.1, confirmed in UPC 2018 Appendix A as adopted by Washington (Table A 103.1)'],
-    ['carried by the flush valve series, C* [S18]', 'carried by the flush valve series, confirmed in a secondary copy: Los Angeles plan-check water sizing worksheet (UPC tables)'],
-    ['IPC Table E103.3(2), from memory (M)', 'IPC Table E103.3(2), from memory (not yet checked against the printed code)'],
-    ['cold/hot = 3/4 of total (M)', 'cold/hot = 3/4 of total (from memory, not yet checked against the printed code)'],
+    [
+      'UPC 2018 Table A 103.1, C [S13]',
+      'UPC 2018 Table A 103.1, confirmed in UPC 2018 Appendix A as adopted by Washington (Table A 103.1)',
+    ],
+    [
+      'carried by the flush valve series, C* [S18]',
+      'carried by the flush valve series, confirmed in a secondary copy: Los Angeles plan-check water sizing worksheet (UPC tables)',
+    ],
+    [
+      'IPC Table E103.3(2), from memory (M)',
+      'IPC Table E103.3(2), from memory (not yet checked against the printed code)',
+    ],
+    [
+      'cold/hot = 3/4 of total (M)',
+      'cold/hot = 3/4 of total (from memory, not yet checked against the printed code)',
+    ],
   ])('%s', (raw, readable) => {
     expect(describeSource(raw)).toBe(readable)
   })

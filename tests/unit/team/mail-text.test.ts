@@ -5,7 +5,9 @@ import { escapeHtml, html } from '../../../server/mail/templates/escape.ts'
 
 describe('escaping user text for HTML mail', () => {
   it('escapes the five special characters', () => {
-    expect(escapeHtml(`<a href="x">Tom & Jo's</a>`)).toBe('&lt;a href=&quot;x&quot;&gt;Tom &amp; Jo&#39;s&lt;/a&gt;')
+    expect(escapeHtml(`<a href="x">Tom & Jo's</a>`)).toBe(
+      '&lt;a href=&quot;x&quot;&gt;Tom &amp; Jo&#39;s&lt;/a&gt;',
+    )
   })
   it('escapes every value of the html template tag, not the template itself', () => {
     expect(html`<b>${'<i>'}</b>${3}`).toBe('<b>&lt;i&gt;</b>3')

@@ -15,9 +15,9 @@ describe('issue messages in the display units', () => {
     expect(issueText(issue('fixture wc-1 gets 95.2 kPa; it needs 100.0 kPa.'), 'us')).toBe(
       'fixture wc-1 gets 13.8 psi; it needs 14.5 psi.',
     )
-    expect(
-      issueText(issue('Pipe p-3 (locked 1/2) runs at 2.61 m/s, above 2.4 m/s.'), 'us'),
-    ).toBe('Pipe p-3 (locked 1/2) runs at 8.6 ft/s, above 7.9 ft/s.')
+    expect(issueText(issue('Pipe p-3 (locked 1/2) runs at 2.61 m/s, above 2.4 m/s.'), 'us')).toBe(
+      'Pipe p-3 (locked 1/2) runs at 8.6 ft/s, above 7.9 ft/s.',
+    )
     expect(
       issueText(issue('Pipe p-9: even 4 copper-l carries 31.55 L/s faster than 2.4 m/s.'), 'us'),
     ).toBe('Pipe p-9: even 4 copper-l carries 500 gpm faster than 7.9 ft/s.')

@@ -22,7 +22,11 @@ export interface IntentOutcome {
 const DEFAULT_PIPE_M = 3
 
 /** The system a new pipe belongs to: the hot inlet is hot; otherwise it follows what feeds it. */
-export function systemOfConnection(doc: Diagram, from: DiagramNode, targetHandle: string | null | undefined): System {
+export function systemOfConnection(
+  doc: Diagram,
+  from: DiagramNode,
+  targetHandle: string | null | undefined,
+): System {
   if (targetHandle === HANDLE.hot) return 'hot'
   if (targetHandle === HANDLE.cold) return 'cold'
   if (from.kind === 'water-heater') return 'hot'
@@ -59,7 +63,12 @@ export function placeNear(
         : { x: parent.position.x + STEP.along, y: parent.position.y + siblings * 60 }
   }
   const taken = (q: { x: number; y: number }) =>
-    doc.nodes.some((n) => n.position && Math.abs(n.position.x - q.x) < CLEARANCE && Math.abs(n.position.y - q.y) < CLEARANCE)
+    doc.nodes.some(
+      (n) =>
+        n.position &&
+        Math.abs(n.position.x - q.x) < CLEARANCE &&
+        Math.abs(n.position.y - q.y) < CLEARANCE,
+    )
   for (let i = 0; i < 50 && taken(p); i++) p = { x: p.x + 40, y: p.y + 40 }
   return p
 }
@@ -101,7 +110,8 @@ export function useCanvasIntents() {
   function connect(source: string, target: string, targetHandle?: string | null): IntentOutcome {
     const from = find(source)
     const to = find(target)
-    if (!from || !to) return { ok: false, message: 'Both ends of a pipe must be nodes of this diagram' }
+    if (!from || !to)
+      return { ok: false, message: 'Both ends of a pipe must be nodes of this diagram' }
     const system = systemOfConnection(store.doc, from, targetHandle)
     const problem = connectionProblem(store.doc, { from: source, to: target, system })
     if (problem) return { ok: false, message: `Pipe not drawn: ${problem}` }
@@ -118,18 +128,34 @@ export function useCanvasIntents() {
    * Adds a node from the palette at `position`. With a single feeding node selected, the new node
    * is piped to it at once (the quickest way to grow a branch).
    */
-  function addNode(item: PaletteItem, position: { x: number; y: number }, placed = false): IntentOutcome {
+  function addNode(
+    item: PaletteItem,
+    position: { x: number; y: number },
+    placed = false,
+  ): IntentOutcome {
     const parent = store.selectedNodeIds.length === 1 ? find(store.selectedNodeIds[0]!) : undefined
     const at = placed ? position : placeNear(store.doc, parent, item.kind, position)
     const node = newNode(store.doc, item, at)
     const ops: Operation[] = [{ type: OPS.nodeAdd, node }]
     let pipeNote = ''
-    if (parent && parent.kind !== 'fixture' && parent.kind !== 'equipment' && node.kind !== 'supply') {
-      const system = systemOfConnection(store.doc, parent, node.kind === 'fixture' ? HANDLE.cold : null)
+    if (
+      parent &&
+      parent.kind !== 'fixture' &&
+      parent.kind !== 'equipment' &&
+      node.kind !== 'supply'
+    ) {
+      const system = systemOfConnection(
+        store.doc,
+        parent,
+        node.kind === 'fixture' ? HANDLE.cold : null,
+      )
       const afterAdd = { ...store.doc, nodes: [...store.doc.nodes, node] }
       if (!connectionProblem(afterAdd, { from: parent.id, to: node.id, system })) {
         const id = createIdAllocator(afterAdd)('pipe')
-        ops.push({ type: OPS.pipeAdd, pipe: { id, from: parent.id, to: node.id, system, lengthM: pipeLength(parent, node) } })
+        ops.push({
+          type: OPS.pipeAdd,
+          pipe: { id, from: parent.id, to: node.id, system, lengthM: pipeLength(parent, node) },
+        })
         pipeNote = ` and piped from ${parent.id}`
       }
     }

@@ -30,7 +30,8 @@ export function fitIntoBands(doc: Diagram, free: Positions): Map<string, { x: nu
     const span = Math.max(...ys) - min
     for (const id of ids) {
       const p = free.get(id)!
-      const y = band || span > 0 ? top + (span > 0 ? ((p.y - min) / span) * height : height / 2) : p.y
+      const y =
+        band || span > 0 ? top + (span > 0 ? ((p.y - min) / span) * height : height / 2) : p.y
       placed.set(id, { x: Math.round(p.x / 10) * 10, y: Math.round(y / 10) * 10 })
     }
   }

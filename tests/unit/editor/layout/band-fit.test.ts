@@ -45,7 +45,10 @@ describe('placing a clicked palette item', async () => {
 
   it('puts a fixture above its branch and the next one beside it', () => {
     expect(placeNear(base, parent, 'fixture', { x: 0, y: 0 })).toEqual({ x: 400, y: 360 })
-    const withOne: Diagram = { ...base, pipes: [{ id: 'P1', from: 'J1', to: 'F1', system: 'cold', lengthM: 2 }] }
+    const withOne: Diagram = {
+      ...base,
+      pipes: [{ id: 'P1', from: 'J1', to: 'F1', system: 'cold', lengthM: 2 }],
+    }
     expect(placeNear(withOne, parent, 'fixture', { x: 0, y: 0 })).toEqual({ x: 590, y: 360 })
   })
 

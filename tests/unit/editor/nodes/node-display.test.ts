@@ -61,7 +61,9 @@ describe('node text', () => {
 
   test('the summary states pressures in the display units', () => {
     const short = issue('warning', 'fixture wc-1 gets 95.2 kPa; it needs 100.0 kPa.')
-    expect(problemSummary([short], 'us')).toBe('Warning: fixture wc-1 gets 13.8 psi; it needs 14.5 psi.')
+    expect(problemSummary([short], 'us')).toBe(
+      'Warning: fixture wc-1 gets 13.8 psi; it needs 14.5 psi.',
+    )
   })
 })
 

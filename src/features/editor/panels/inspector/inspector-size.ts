@@ -61,7 +61,9 @@ export function sizingReason(p: PipeResult, settings: Settings, units: UnitSyste
       return line(`${size} is locked by the designer; the calculation does not resize it.`)
     case 'fixture-minimum': {
       const m = p.fixtureMinimum
-      const what = m ? ` for ${m.label} ${m.nodeId} (${describeSource(m.source)})` : ' of the fixture it feeds'
+      const what = m
+        ? ` for ${m.label} ${m.nodeId} (${describeSource(m.source)})`
+        : ' of the fixture it feeds'
       return line(
         `${size} is the minimum supply size${what}; a smaller size would already keep the velocity within ${limit}.`,
       )
