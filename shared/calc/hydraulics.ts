@@ -125,11 +125,11 @@ export const HYDRAULICS = 1
 export const PRESSURES = 2
 
 /**
- * One forward pass over pipes [lo, hi) in pre-order. HYDRAULICS: load, flow, size, friction and
- * drop of each pipe from its sums. PRESSURES: residual pressure at each outlet from its parent's
- * (so the parent must be current; NaN when unknown) and its margin (residual − required,
- * +Infinity where nothing is checked). Returns the smallest margin met (+Infinity without PRESSURES)
- * and leaves the count of valid pipes that no size fits in `e.sweepUnsized`.
+ * One forward pass over pipes [lo, hi) in pre-order. HYDRAULICS: flow, size and friction of each
+ * pipe from its sums (the load is read from the sums when asked: loadAt). PRESSURES: residual
+ * pressure at each outlet from its parent's (so the parent must be current; NaN when unknown).
+ * Returns the smallest margin met (residual − required; +Infinity without PRESSURES) and leaves
+ * the count of valid pipes that no size fits in `e.sweepUnsized`.
  */
 export function sweep(e: Engine, lo: number, hi: number, parts: number): number {
   const hydraulics = (parts & HYDRAULICS) !== 0
