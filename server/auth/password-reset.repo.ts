@@ -14,6 +14,10 @@ export const insertPasswordReset = (
   row: Pick<PasswordResetRow, 'user_id' | 'token_hash' | 'expires_at'>,
 ) => db('password_resets').insert(row)
 
+/** Takes back a link whose mail could not be sent. */
+export const deletePasswordReset = (db: Db, tokenHash: string) =>
+  db('password_resets').where({ token_hash: tokenHash }).delete()
+
 export const findPasswordReset = (db: Db, tokenHash: string) =>
   db<PasswordResetRow>('password_resets').where({ token_hash: tokenHash }).first()
 

@@ -21,21 +21,16 @@ export async function requestPasswordReset(db: Db, mailer: Mailer, origin: strin
   if (!user) return
   const { token, hash } = newToken()
   const expiresAt = new Date(Date.now() + PASSWORD_RESET_LIFETIME_MS)
-  await db.transaction(async (trx) => {
-    await repo.insertPasswordReset(trx, {
-      user_id: user.id,
-      token_hash: hash,
-      expires_at: expiresAt,
-    })
-    await mailer.send(
-      passwordResetMail({
-        to: user.email,
-        name: user.name,
-        link: `${origin}/reset-password/${token}`,
-        expiresAt,
-      }),
-    )
-  })
+  // Stored before the mail goes out, so the link works the moment the mail exists; taken back if
+  // the mail cannot be sent.
+  await repo.insertPasswordReset(db, { user_id: user.id, token_hash: hash, expires_at: expiresAt })
+  const link = `${origin}/reset-password/${token}`
+  try {
+    await mailer.send(passwordResetMail({ to: user.email, name: user.name, link, expiresAt }))
+  } catch (error) {
+    await repo.deletePasswordReset(db, hash)
+    throw error
+  }
 }
 
 /** The account a still-usable link belongs to (for the "choose a new password" page). */

@@ -65,7 +65,7 @@ describe('the local fake SMTP server', () => {
     expect(row!.text).toContain('8 January 2027 at 10:00 UTC')
   })
 
-  it('turns a failed delivery into a clear 502 and keeps no invitation behind', async () => {
+  it('turns a failed delivery into a clear 502 and keeps no invitation or reset link behind', async () => {
     const dead = await startFakeSmtp(t.db, 0)
     await dead.close()
     const broken = startTestApp({ SMTP_HOST: '127.0.0.1', SMTP_PORT: String(dead.port) })
@@ -80,6 +80,24 @@ describe('the local fake SMTP server', () => {
         .expect(502)
       expect(res.body.error).toMatchObject({ code: 'mail_failed' })
       expect(await broken.db('invitations').where({ email })).toEqual([])
+
+      // A reset link whose mail fails is taken back (the request itself was answered at once).
+      const me = await signUp(supertest.agent(broken.app), 'Unsent Reset')
+      await supertest(broken.app)
+        .post('/api/auth/password-reset/request')
+        .send({ email: me.email })
+        .expect(202)
+      const resets = () => broken.db('password_resets').where({ user_id: me.id })
+      // The mail fails within milliseconds; give the background work ample time either way.
+      const end = Date.now() + 1_500
+      let seen = false
+      while (Date.now() < end) {
+        const rows = await resets()
+        if (rows.length) seen = true
+        if (seen && !rows.length) break
+        await new Promise((resolve) => setTimeout(resolve, 10))
+      }
+      expect(await resets()).toEqual([])
     } finally {
       await broken.close()
     }
