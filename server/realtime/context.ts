@@ -67,10 +67,12 @@ export interface Joined {
 
 /**
  * Between server processes, through the adapter: committed ops, a batch per tick, so a group
- * commit costs one NOTIFY rather than one per op.
+ * commit costs one NOTIFY rather than one per op; and the member lists of presence (the
+ * receiving side checks their shape before passing them on).
  */
 export interface RelayEvents {
   'ops:committed': (batch: OpApplied[]) => void
+  'presence:relayed': (message: unknown) => void
 }
 
 /** Incoming payloads are typed `unknown` on purpose: every handler parses them with zod. */

@@ -28,7 +28,7 @@ import { guardSocket } from './guard.ts'
 import { joinHandlers } from './join.ts'
 import { opHandlers, receiveRelayedOps, relayOps } from './ops.ts'
 import { originAllowed } from './origin.ts'
-import { broadcastPresence, presenceHandlers } from './presence.ts'
+import { broadcastPresence, presenceHandlers, receiveRelayedPresence } from './presence.ts'
 import { socketUser, useHttpSession } from './session.ts'
 
 export interface RealtimeOptions {
@@ -81,6 +81,7 @@ export function attachRealtime(httpServer: HttpServer, options: RealtimeOptions)
   const relay = relayOps(io)
   const ctx: RealtimeContext = { io, db, queue, relay, limits, inflight: new Set(), closing: false }
   receiveRelayedOps(io)
+  receiveRelayedPresence(io)
 
   io.on('connection', (socket) => {
     const user = socketUser(socket.request)

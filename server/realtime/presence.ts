@@ -21,6 +21,7 @@ import {
   refuse,
   roomOf,
   type RealtimeContext,
+  type RealtimeServer,
   type SocketData,
   type SocketState,
 } from './context.ts'
@@ -44,9 +45,39 @@ export function membersOf(diagramId: string, sockets: readonly { data: SocketDat
 /** How long to wait for other server processes' sockets before drawing presence without them. */
 const PRESENCE_WAIT_MS = 1000
 
-/** Sends everyone in the room the current member list. */
+/**
+ * Per context and diagram: whether a member list is being gathered, and whether something
+ * changed meanwhile (then it is gathered again when the first is out).
+ */
+const running = new WeakMap<RealtimeContext, Map<string, { again: boolean }>>()
+
+/**
+ * Sends everyone in the room the current member list. One list at a time per diagram: gathering
+ * takes a variable time (other processes answer, or the wait runs out), and two overlapping ones
+ * could arrive in the wrong order and leave everyone with the older list.
+ */
 export async function broadcastPresence(ctx: RealtimeContext, diagramId: string): Promise<void> {
   if (ctx.closing) return
+  let byDiagram = running.get(ctx)
+  if (!byDiagram) running.set(ctx, (byDiagram = new Map()))
+  const current = byDiagram.get(diagramId)
+  if (current) {
+    current.again = true
+    return
+  }
+  const run = { again: false }
+  byDiagram.set(diagramId, run)
+  try {
+    do {
+      run.again = false
+      await sendPresence(ctx, diagramId)
+    } while (run.again && !ctx.closing)
+  } finally {
+    byDiagram.delete(diagramId)
+  }
+}
+
+async function sendPresence(ctx: RealtimeContext, diagramId: string): Promise<void> {
   const room = roomOf(diagramId)
   let sockets
   try {
@@ -61,7 +92,21 @@ export async function broadcastPresence(ctx: RealtimeContext, diagramId: string)
     diagramId,
     members: membersOf(diagramId, sockets as unknown as { data: SocketData }[]),
   }
-  ctx.io.to(room).emit(SERVER_EVENTS.presenceState, message)
+  // This process's sockets at once and in order; a room-wide emit would first wait for the
+  // adapter's NOTIFY, and two of those can finish in either order.
+  ctx.io.local.to(room).emit(SERVER_EVENTS.presenceState, message)
+  if ((await ctx.io.of('/').adapter.serverCount()) > 1) ctx.io.serverSideEmit(RELAYED, message)
+}
+
+const RELAYED = 'presence:relayed' as const
+
+/** Delivers member lists made by other server processes to this process's sockets. */
+export function receiveRelayedPresence(io: RealtimeServer): void {
+  io.on(RELAYED, (message: unknown) => {
+    const m = message as PresenceState | null
+    if (typeof m?.diagramId !== 'string' || !Array.isArray(m.members)) return
+    io.local.to(roomOf(m.diagramId)).emit(SERVER_EVENTS.presenceState, m)
+  })
 }
 
 export function presenceHandlers(ctx: RealtimeContext, state: SocketState): void {

@@ -10,6 +10,7 @@ import { afterAll, beforeAll, expect, it } from 'vitest'
 import { addMember } from '../../server/modules/projects/projects.repo.ts'
 import type { Diagram } from '../../shared/document/model.ts'
 import { OperationError } from '../../shared/document/operations.ts'
+import { EVENTS } from '../../shared/protocol/events.ts'
 import { createDiagramAt, signUpAt, waitUntil, type Session } from './helpers/realtime-http.ts'
 import { integrityProblems, prng, randomOperation, seedDiagram } from './helpers/realtime-random.ts'
 import { startRealtimeServer, type RealtimeTestServer } from './helpers/realtime-server.ts'
@@ -102,3 +103,28 @@ it('several clients with random edits and disconnects converge with the database
     { numRuns: 2, seed, endOnFailure: true },
   )
 }, 60_000)
+
+it('presence crosses processes: each side sees the other and the selection made there', async () => {
+  const { projectId, diagramId } = await createDiagramAt(servers[0]!.url, users[0]!, seedDiagram())
+  await addMember(servers[0]!.db, projectId, users[1]!.user.id, 'editor')
+  const here = new SyncClient(servers[0]!.url, users[0]!.cookie, diagramId)
+  const there = new SyncClient(servers[1]!.url, users[1]!.cookie, diagramId)
+  try {
+    const sees = (c: SyncClient, userId: string, node?: string) =>
+      !!c.presence?.members.some(
+        (m) => m.userId === userId && (!node || m.selection.nodes.includes(node)),
+      )
+    await waitUntil(
+      () => sees(here, users[1]!.user.id) && sees(there, users[0]!.user.id),
+      'both present on both processes',
+    )
+    there.socket.emit(EVENTS.presenceUpdate, {
+      diagramId,
+      selection: { nodes: ['J2'], pipes: [] },
+    })
+    await waitUntil(() => sees(here, users[1]!.user.id, 'J2'), 'the selection across processes')
+  } finally {
+    here.close()
+    there.close()
+  }
+})
