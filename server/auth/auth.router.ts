@@ -1,10 +1,10 @@
 import { Router, type Request } from 'express'
-import { rateLimit } from 'express-rate-limit'
 import { signInBodySchema, signUpBodySchema } from '../../shared/api/schemas.ts'
 import type { Db } from '../db/knex.ts'
 import { HttpError, unauthorized } from '../errors.ts'
 import type { createPassport } from './passport.ts'
 import { requireUser } from '../middleware/require-user.ts'
+import { attemptLimit } from '../middleware/attempt-limit.ts'
 import { validateBody } from '../middleware/validate.ts'
 import { createUser, toUser } from '../modules/users/users.service.ts'
 
@@ -17,20 +17,7 @@ export function authRouter(
   signInLimit: number,
 ): Router {
   const router = Router()
-  const signInLimiter = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: signInLimit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, res) => {
-      res.status(429).json({
-        error: {
-          code: 'too_many_attempts',
-          message: 'Too many sign-in attempts; wait a few minutes',
-        },
-      })
-    },
-  })
+  const signInLimiter = attemptLimit(signInLimit, 'Too many sign-in attempts; wait a few minutes')
 
   router.post('/sign-up', validateBody(signUpBodySchema), async (req, res) => {
     const user = toUser(await createUser(db, req.body))

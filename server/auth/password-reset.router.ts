@@ -1,5 +1,4 @@
 import { Router } from 'express'
-import { rateLimit } from 'express-rate-limit'
 import {
   completePasswordResetBodySchema,
   requestPasswordResetBodySchema,
@@ -8,26 +7,14 @@ import { tokenSchema } from '../../shared/api/invitations.ts'
 import type { Db } from '../db/knex.ts'
 import { badRequest } from '../errors.ts'
 import type { Mailer } from '../mail/mailer.ts'
+import { attemptLimit } from '../middleware/attempt-limit.ts'
 import { validateBody } from '../middleware/validate.ts'
 import * as resets from './password-reset.service.ts'
 
 /** Mounted at /api/auth/password-reset; public (the user has forgotten the password). */
 export function passwordResetRouter(db: Db, mailer: Mailer, origin: string, limit: number): Router {
   const router = Router()
-  const limiter = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, res) => {
-      res.status(429).json({
-        error: {
-          code: 'too_many_attempts',
-          message: 'Too many reset requests; wait a few minutes',
-        },
-      })
-    },
-  })
+  const limiter = attemptLimit(limit, 'Too many reset requests; wait a few minutes')
 
   router.post('/request', limiter, validateBody(requestPasswordResetBodySchema), (req, res) => {
     // The answer goes out before any lookup or mail, so its timing says nothing about whether the

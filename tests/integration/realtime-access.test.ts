@@ -1,6 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { addMember } from '../../server/modules/projects/projects.repo.ts'
-import type { DiagramInput } from '../../shared/document/model.ts'
 import { EVENTS } from '../../shared/protocol/events.ts'
 import type {
   MessageRefused,
@@ -8,25 +7,9 @@ import type {
   PresenceCursorRelay,
 } from '../../shared/protocol/server-messages.ts'
 import { createDiagramAt, signUpAt, waitUntil, type Session } from './helpers/realtime-http.ts'
+import { smallRiser } from './helpers/small-riser.ts'
 import { startRealtimeServer, type RealtimeTestServer } from './helpers/realtime-server.ts'
 import { openSocket, SyncClient } from './helpers/realtime-sync-client.ts'
-
-const riser: DiagramInput = {
-  format: 'tributary-diagram',
-  version: 1,
-  name: 'Domestic water',
-  nodes: [
-    { id: 'S1', kind: 'supply', label: 'Street main', pressureKPa: 420 },
-    { id: 'J1', kind: 'junction' },
-    { id: 'J2', kind: 'junction' },
-    { id: 'F1', kind: 'fixture', fixture: 'lavatory', label: 'Basin' },
-  ],
-  pipes: [
-    { id: 'P1', from: 'S1', to: 'J1', system: 'cold', lengthM: 6 },
-    { id: 'P2', from: 'J1', to: 'J2', system: 'cold', lengthM: 4 },
-    { id: 'P3', from: 'J2', to: 'F1', system: 'cold', lengthM: 2 },
-  ],
-}
 
 let srv: RealtimeTestServer
 let owner: Session
@@ -45,7 +28,7 @@ beforeAll(async () => {
   owner = await signUpAt(srv.url, 'Orla Owner')
   editor = await signUpAt(srv.url, 'Eli Editor')
   reviewer = await signUpAt(srv.url, 'Ravi Reviewer')
-  ;({ projectId, diagramId } = await createDiagramAt(srv.url, owner, riser))
+  ;({ projectId, diagramId } = await createDiagramAt(srv.url, owner, smallRiser))
   await addMember(srv.db, projectId, editor.user.id, 'editor')
   await addMember(srv.db, projectId, reviewer.user.id, 'reviewer')
 })
