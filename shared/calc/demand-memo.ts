@@ -13,7 +13,8 @@
 export const MEMO_ROWS = 256
 /** Sizes per material a class can name (locked and minimum size indices). */
 export const MEMO_SIZES = 32
-const CLASSES = MEMO_ROWS * MEMO_SIZES * MEMO_SIZES
+/** Distinct sizing classes; the key's factor for the load. */
+export const MEMO_CLASSES = MEMO_ROWS * MEMO_SIZES * MEMO_SIZES
 
 /**
  * The sizing class of a pipe: capacity row (-1: no material or an invalid pipe), locked size
@@ -50,15 +51,13 @@ export function createDemandMemo(expected: number): DemandMemo {
   return { shift: 32 - bits, rows }
 }
 
-/**
- * The memo key of a load in milli-WSFU (an integer), the curve (0 flush tank, 1 flush valve) and
- * the sizing class. Exact below 2^34 milli-WSFU (17 million WSFU).
+/*
+ * Key and slot, computed inline by the sizing sweep (hydraulics.ts), where a call or a read of
+ * an imported constant costs a noticeable share of the loop:
+ *   key  = (milli × MEMO_CLASSES + class) × 2 + curve — exact below 2^34 milli-WSFU (17 million
+ *          WSFU), with milli the load in milli-WSFU (an integer) and curve 0 flush tank, 1 flush
+ *          valve;
+ *   slot = imul(milli ^ imul(class × 2 + curve, 0x85ebca6b), 0x9e3779b1) >>> shift — hashed
+ *          from the parts, which are int32: the key itself passes 2^31, and truncating such a
+ *          double to an integer takes V8's slow path.
  */
-export function memoKey(milli: number, curve: number, cls: number): number {
-  return (milli * CLASSES + cls) * 2 + curve
-}
-
-/** The slot of `key`. */
-export function memoSlot(memo: DemandMemo, key: number): number {
-  return Math.imul(key | 0, 0x9e3779b1) >>> memo.shift
-}

@@ -12,16 +12,7 @@
  * (demand-memo.ts). No closures or object allocations in these loops.
  */
 import { columnLps } from './demand-lookup.ts'
-import {
-  M_BASE,
-  M_KEY,
-  M_LPS,
-  M_PER_M,
-  M_POW,
-  MEMO_STRIDE,
-  memoKey,
-  memoSlot,
-} from './demand-memo.ts'
+import { M_BASE, M_KEY, M_LPS, M_PER_M, M_POW, MEMO_CLASSES, MEMO_STRIDE } from './demand-memo.ts'
 import type { Engine } from './engine.ts'
 import { darcyLossKPa } from './friction.ts'
 import {
@@ -113,8 +104,25 @@ const LAYOUT: [number, number][] = [
   [IOUT, 4], [CLASS, 0], [UP, 1], [SIZE, 2], [FLAGS, 3],
   [GIVEN_UP, 1], [VALVE_CURVE, 2], [AFTER_DEVICE, 4],
   [MEMO_STRIDE, 5], [M_KEY, 0], [M_LPS, 1], [M_POW, 2], [M_BASE, 3], [M_PER_M, 4],
+  [MEMO_CLASSES, 262144],
 ]
 if (LAYOUT.some(([field, literal]) => field !== literal)) throw new Error('sweep layout mismatch')
+
+/**
+ * Computes the memo slot at `m` for pipe q's load and curve. Out of the sweep's loop on purpose:
+ * inlined there, this rarely taken path made every pipe's step a sixth slower.
+ */
+function fillMemo(e: Engine, q: number, milli: number, curve: number, key: number, m: number) {
+  const lps = columnLps(e.columns[curve]!, milli / LOAD_SCALE)
+  const pw = hwFlowTerm(lps)
+  const b = baseSize(e, q, velocitySize(e, q, lps))
+  const mem = e.memo.rows
+  mem[m + M_KEY] = key
+  mem[m + M_LPS] = lps
+  mem[m + M_POW] = pw
+  mem[m + M_BASE] = b
+  mem[m + M_PER_M] = perMetre(e, q, b, pw)
+}
 
 // NaN, the unknown pressure, read from memory: with a NaN literal in the loop V8 compiled the
 // pressure part to twice the time.
@@ -140,9 +148,9 @@ export function sweep(e: Engine, lo: number, hi: number, parts: number): number 
   const { sLoad, sWC, sU, sFV, sEq, matStart, matCount, invalid, fin, fo, io } = e
   const { fixtureFlow, cap, devLoss } = e
   const { idMm, roughnessMm } = e.sizes
-  const memo = e.memo
-  const mem = memo.rows
-  const { columns, series, valvesOn, equipmentOn, darcy, water } = e
+  const mem = e.memo.rows
+  const shift = e.memo.shift
+  const { series, valvesOn, equipmentOn, darcy, water } = e
   const supplyKPa = supply >= 0 ? e.nodeOut(supply, 0) : 0
   const unknown = UNKNOWN[0]!
   let minMargin = Infinity
@@ -164,28 +172,15 @@ export function sweep(e: Engine, lo: number, hi: number, parts: number): number 
         // VALVE_CURVE; without flush valves it stays 0 (valvesOn never reverts).
         io[i + 3 /* FLAGS */] = (io[i + 3]! & ~2) | (fv << 1)
       }
-      const key = memoKey(milli, fv, io[i + 0 /* CLASS */]!)
-      const m = memoSlot(memo, key) * 5 /* MEMO_STRIDE */
-      let lps: number
-      let pw: number
-      let b: number
-      let perM: number
-      if (mem[m + 0 /* M_KEY */] === key) {
-        lps = mem[m + 1 /* M_LPS */]!
-        pw = mem[m + 2 /* M_POW */]!
-        b = mem[m + 3 /* M_BASE */]!
-        perM = mem[m + 4 /* M_PER_M */]!
-      } else {
-        lps = columnLps(columns[fv]!, milli / LOAD_SCALE)
-        pw = hwFlowTerm(lps)
-        b = baseSize(e, q, velocitySize(e, q, lps))
-        perM = perMetre(e, q, b, pw)
-        mem[m + 0 /* M_KEY */] = key
-        mem[m + 1 /* M_LPS */] = lps
-        mem[m + 2 /* M_POW */] = pw
-        mem[m + 3 /* M_BASE */] = b
-        mem[m + 4 /* M_PER_M */] = perM
-      }
+      // Memo key and slot as demand-memo.ts describes them (MEMO_CLASSES = 262144).
+      const cls = io[i + 0 /* CLASS */]!
+      const key = (milli * 262144 + cls) * 2 + fv
+      const m = (Math.imul(milli ^ Math.imul(cls * 2 + fv, 0x85ebca6b), 0x9e3779b1) >>> shift) * 5
+      if (mem[m + 0 /* M_KEY */] !== key) fillMemo(e, q, milli, fv, key, m)
+      const lps = mem[m + 1 /* M_LPS */]!
+      let pw = mem[m + 2 /* M_POW */]!
+      let b = mem[m + 3 /* M_BASE */]!
+      let perM = mem[m + 4 /* M_PER_M */]!
       let f = lps
       if (equipmentOn) {
         fixtureFlow[q] = lps
