@@ -127,6 +127,8 @@ export class Engine {
   unsizedCount = 0
   /** Pipes without a fitting size met by the last sweep (hydraulics.ts). */
   sweepUnsized = 0
+  /** The smallest margin the last sweep met (hydraulics.ts). */
+  sweepMargin = Infinity
   /** True when residual pressures lag behind an incremental edit (the margin tree is current). */
   stale = false
   readonly stamp: Int32Array

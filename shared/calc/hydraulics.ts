@@ -109,15 +109,23 @@ const LAYOUT: [number, number][] = [
 if (LAYOUT.some(([field, literal]) => field !== literal)) throw new Error('sweep layout mismatch')
 
 /**
- * Computes the memo slot at `m` for pipe q's load and curve. Out of the sweep's loop on purpose:
- * inlined there, this rarely taken path made every pipe's step a sixth slower.
+ * Where the sweep stopped on a memo miss: [pipe, load in milli-WSFU, curve, key, slot offset].
+ * The sweep returns to `sweep` to have the slot filled rather than calling out of its loop: a
+ * call there, once the first sweeps had taken it often, was compiled into the loop and made
+ * every pipe's step about a quarter slower for good.
  */
-function fillMemo(e: Engine, q: number, milli: number, curve: number, key: number, m: number) {
-  const lps = columnLps(e.columns[curve]!, milli / LOAD_SCALE)
+const MISS = new Float64Array(5)
+
+/** Fills the memo slot of the miss recorded in MISS. */
+function fillMemo(e: Engine): void {
+  const q = MISS[0]!
+  const milli = MISS[1]!
+  const m = MISS[4]!
+  const lps = columnLps(e.columns[MISS[2]!]!, milli / LOAD_SCALE)
   const pw = hwFlowTerm(lps)
   const b = baseSize(e, q, velocitySize(e, q, lps))
   const mem = e.memo.rows
-  mem[m + M_KEY] = key
+  mem[m + M_KEY] = MISS[3]!
   mem[m + M_LPS] = lps
   mem[m + M_POW] = pw
   mem[m + M_BASE] = b
@@ -140,6 +148,22 @@ export const PRESSURES = 2
  * the count of valid pipes that no size fits in `e.sweepUnsized`.
  */
 export function sweep(e: Engine, lo: number, hi: number, parts: number): number {
+  e.sweepUnsized = 0
+  e.sweepMargin = Infinity
+  for (let q = lo, last = -1; (q = sweepFrom(e, q, hi, parts)) < hi; last = q) {
+    // A key that never equals itself (a NaN load) would stop at the same pipe for ever.
+    if (q === last) throw new Error(`pipe ${e.pipeIds[q]}: its load is not a number`)
+    fillMemo(e)
+  }
+  return e.sweepMargin
+}
+
+/**
+ * The sweep's loop, from pipe `lo` on, adding to e.sweepUnsized and e.sweepMargin. Returns `hi`
+ * when done, or the pipe whose memo slot is missing (recorded in MISS; that pipe is not
+ * written and is swept again once the slot is filled).
+ */
+function sweepFrom(e: Engine, lo: number, hi: number, parts: number): number {
   const hydraulics = (parts & HYDRAULICS) !== 0
   const pressures = (parts & PRESSURES) !== 0
   const givenUp = e.givenUpCount > 0
@@ -153,9 +177,10 @@ export function sweep(e: Engine, lo: number, hi: number, parts: number): number 
   const { series, valvesOn, equipmentOn, darcy, water } = e
   const supplyKPa = supply >= 0 ? e.nodeOut(supply, 0) : 0
   const unknown = UNKNOWN[0]!
-  let minMargin = Infinity
-  let unsized = 0
-  for (let q = lo; q < hi; q++) {
+  let minMargin = e.sweepMargin
+  let unsized = e.sweepUnsized
+  let q = lo
+  for (; q < hi; q++) {
     const fi = q * 3 /* FIN */
     const o = q * 3 /* FOUT */
     const i = q * 4 /* IOUT */
@@ -176,7 +201,14 @@ export function sweep(e: Engine, lo: number, hi: number, parts: number): number 
       const cls = io[i + 0 /* CLASS */]!
       const key = (milli * 262144 + cls) * 2 + fv
       const m = (Math.imul(milli ^ Math.imul(cls * 2 + fv, 0x85ebca6b), 0x9e3779b1) >>> shift) * 5
-      if (mem[m + 0 /* M_KEY */] !== key) fillMemo(e, q, milli, fv, key, m)
+      if (mem[m + 0 /* M_KEY */] !== key) {
+        MISS[0] = q
+        MISS[1] = milli
+        MISS[2] = fv
+        MISS[3] = key
+        MISS[4] = m
+        break
+      }
       const lps = mem[m + 1 /* M_LPS */]!
       let pw = mem[m + 2 /* M_POW */]!
       let b = mem[m + 3 /* M_BASE */]!
@@ -243,7 +275,8 @@ export function sweep(e: Engine, lo: number, hi: number, parts: number): number 
     }
   }
   e.sweepUnsized = unsized
-  return minMargin
+  e.sweepMargin = minMargin
+  return q
 }
 
 /** Load, flow, size and friction of pipe q from its sums (pressures untouched). */
