@@ -4,6 +4,7 @@
  */
 import { fernhollowHallDiagram } from '../../shared/demo/fernhollow-hall.ts'
 import type { Db } from '../db/knex.ts'
+import { recordAudit } from '../modules/audit/audit.service.ts'
 import { insertDiagramRow } from '../modules/diagrams/diagrams.repo.ts'
 import {
   addOrganisationMember,
@@ -65,6 +66,14 @@ export async function seedDemo(db: Db): Promise<string> {
       created_by: owner.id,
     })
     for (const user of users) await addMember(trx, project.id, user.id, user.role)
+    // As the project service records it, so the demo's activity page starts with its creation.
+    await recordAudit(trx, {
+      actorId: owner.id,
+      projectId: project.id,
+      organisationId: firm.id,
+      action: 'project.created',
+      details: { name: project.name },
+    })
     await insertDiagramRow(trx, {
       project_id: project.id,
       name: DEMO_DIAGRAM_NAME,
