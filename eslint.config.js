@@ -5,7 +5,9 @@ import globals from 'globals'
 import tseslint from 'typescript-eslint'
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', '.data/**', 'test-results/**', 'playwright-report/**'] },
+  {
+    ignores: ['dist/**', 'node_modules/**', '.data/**', 'test-results/**', 'playwright-report/**'],
+  },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   ...vue.configs['flat/recommended'],
@@ -17,7 +19,10 @@ export default tseslint.config(
     languageOptions: { globals: { ...globals.browser, ...globals.node } },
     rules: {
       '@typescript-eslint/consistent-type-imports': ['error', { fixStyle: 'inline-type-imports' }],
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_' },
+      ],
       'vue/multi-word-component-names': 'off',
       // Optional props typed with `?` are undefined by design.
       'vue/require-default-prop': 'off',
@@ -29,7 +34,18 @@ export default tseslint.config(
     rules: {
       'no-restricted-imports': [
         'error',
-        { patterns: ['vue', 'pinia', 'express', 'knex', 'pg', 'naive-ui', '@vue-flow/*', 'socket.io*'] },
+        {
+          patterns: [
+            'vue',
+            'pinia',
+            'express',
+            'knex',
+            'pg',
+            'naive-ui',
+            '@vue-flow/*',
+            'socket.io*',
+          ],
+        },
       ],
     },
   },
