@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # `npm test`: install what is missing (Chromium too), start a throw-away PostgreSQL cluster on its
-# own port, then unit, integration and end-to-end tests. The cluster is removed afterwards.
+# own port, then static checks (types, lint, formatting), unit, integration and end-to-end tests. The cluster is removed afterwards.
 set -euo pipefail
 ROOT="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$ROOT"
@@ -22,6 +22,9 @@ DATABASE_URL="postgres://postgres@127.0.0.1:$PGPORT/tributary_e2e" node --import
 DATABASE_URL="postgres://postgres@127.0.0.1:$PGPORT/tributary_e2e" node --import tsx scripts/seed.ts --if-empty
 node --import tsx scripts/migrate.ts
 
+echo "== static checks (types, ESLint, Prettier)"
+npm run -s typecheck
+npm run -s lint
 echo "== unit tests"
 node_modules/.bin/vitest run --project unit
 echo "== integration tests (PostgreSQL on 127.0.0.1:$PGPORT)"
