@@ -21,6 +21,7 @@ import { startRealtimeServer } from '../tests/integration/helpers/realtime-serve
 import type { SyncBenchResult, SyncBenchSetup } from './sync-clients.ts'
 
 const CLIENTS = 5
+const WINDOW = 64 // edits in flight per client in the throughput run
 // Per-socket limit for this run. The default (REALTIME_RATE 200/s, burst 400) caps 5 clients at
 // 1,000 edits/s, below the target; 2,500/s per socket lets the server, not the limiter, set the
 // pace and is still a limit a runaway client hits.
@@ -74,7 +75,7 @@ const result = await runClients({
   clients: CLIENTS,
   edits: Number(process.env.BENCH_EDITS ?? 1000),
   throughputMs: Number(process.env.BENCH_MS ?? 4000),
-  window: 64,
+  window: WINDOW,
 })
 await srv.close()
 await relayServer.close()
@@ -94,7 +95,7 @@ console.log(
 )
 const perSecond = result.acked / result.seconds
 console.log(
-  `Acknowledged edits/s, ${CLIENTS} clients pipelining 64 each on one diagram: ` +
+  `Acknowledged edits/s, ${CLIENTS} clients pipelining ${WINDOW} each on one diagram: ` +
     `${Math.round(perSecond)} (${result.acked} in ${result.seconds.toFixed(1)} s, ${result.rejected} refused; ` +
     `target ≥ 2,000): ${perSecond >= 2000 ? 'met' : 'NOT met'}`,
 )
