@@ -7,15 +7,15 @@
  * Large diagrams draw only what is on screen, so "open" is measured to the first screenful.
  * Needs the private PostgreSQL (started here) and a built client (built here when missing).
  */
-import { execSync, spawn } from 'node:child_process'
+import { execSync } from 'node:child_process'
 import { existsSync } from 'node:fs'
 import { loadavg } from 'node:os'
 import { chromium, type BrowserContext, type Page } from '@playwright/test'
+import { startAppServer, type AppServer } from './app-server.ts'
 import { editorBenchDiagram } from './editor-diagram.ts'
 import { CHROMIUM_ARGS, CHROMIUM_EXECUTABLE } from '../e2e/chromium.ts'
 
 const PORT = 3211
-const BASE = `http://127.0.0.1:${PORT}`
 const PGPORT = process.env.PGPORT ?? '54329'
 const DATABASE = process.env.BENCH_DATABASE ?? 'tributary_bench'
 const DATABASE_URL = `postgres://postgres@127.0.0.1:${PGPORT}/${DATABASE}`
@@ -27,30 +27,6 @@ function stats(frames: number[]) {
   const s = [...frames].sort((a, b) => a - b)
   const q = (p: number) => s[Math.min(s.length - 1, Math.floor(p * s.length))] ?? 0
   return `${s.length} frames, p50 ${q(0.5).toFixed(1)} ms, p95 ${q(0.95).toFixed(1)} ms, max ${(s[s.length - 1] ?? 0).toFixed(1)} ms`
-}
-
-async function api(path: string, cookie: string, body?: unknown, method = 'POST') {
-  const res = await fetch(`${BASE}/api${path}`, {
-    method,
-    headers: { 'Content-Type': 'application/json', cookie },
-    body: body === undefined ? undefined : JSON.stringify(body),
-  })
-  if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`)
-  return res
-}
-
-async function waitForHealth() {
-  for (let i = 0; i < 100; i++) {
-    if (
-      await fetch(`${BASE}/api/health`).then(
-        (r) => r.ok,
-        () => false,
-      )
-    )
-      return
-    await new Promise((r) => setTimeout(r, 200))
-  }
-  throw new Error('server did not start')
 }
 
 // Scripts run in the page are strings: tsx would wrap functions with a helper the page lacks.
@@ -68,20 +44,20 @@ const labelCount = `document.querySelectorAll('[data-testid^="pipe-label-"]').le
 const labelTexts = `[...document.querySelectorAll('[data-testid^="pipe-text-"]')].map((e) => e.textContent)`
 
 /** Opens one generated diagram and makes the material edit, printing what it measured. */
-async function benchDiagram(context: BrowserContext, targetNodes: number) {
+async function benchDiagram(app: AppServer, context: BrowserContext, targetNodes: number) {
   const doc = editorBenchDiagram(targetNodes)
-  const created = await api(`/projects/${projectId}/diagrams`, cookie, {
+  const created = await app.api(`/projects/${projectId}/diagrams`, cookie, {
     name: 'Bench',
     document: doc,
   })
   const diagram = (await created.json()).diagram
   console.log(`Diagram: ${doc.nodes.length} nodes, ${doc.pipes.length} pipes`)
   const page = await context.newPage()
-  await page.goto(`${BASE}/projects`)
+  await page.goto(`${app.base}/projects`)
   await startFrames(page)
 
   const t0 = Date.now()
-  await page.goto(`${BASE}/projects/${projectId}/diagrams/${diagram.id}`)
+  await page.goto(`${app.base}/projects/${projectId}/diagrams/${diagram.id}`)
   await startFrames(page)
   const probe = doc.pipes[0]!.id
   await page.getByTestId(`pipe-label-${probe}`).waitFor({ timeout: 120_000 })
@@ -125,16 +101,7 @@ run(`bash scripts/pg.sh ensure-db ${DATABASE}`, { PGPORT })
 run('node --import tsx scripts/migrate.ts', { DATABASE_URL })
 if (!existsSync('dist/index.html')) run('node_modules/.bin/vite build --logLevel warn')
 
-const server = spawn('node', ['--import', 'tsx', 'server/index.ts'], {
-  env: {
-    ...process.env,
-    PORT: String(PORT),
-    DATABASE_URL,
-    NODE_ENV: 'test',
-    SIGN_IN_LIMIT: '1000',
-  },
-  stdio: 'ignore',
-})
+const app = await startAppServer(PORT, DATABASE_URL)
 const browser = await chromium.launch({
   executablePath: CHROMIUM_EXECUTABLE,
   args: CHROMIUM_ARGS,
@@ -142,33 +109,24 @@ const browser = await chromium.launch({
 let projectId = ''
 let cookie = ''
 try {
-  await waitForHealth()
-  const email = `bench-${Date.now()}@example.test`
-  const signUp = await api('/auth/sign-up', '', {
-    email,
-    name: 'Bench Runner',
-    password: 'bench-password-1',
-  })
-  cookie = signUp.headers.get('set-cookie')!.split(';')[0]!
-  projectId = (await (await api('/projects', cookie, { name: 'Editor benchmark' })).json()).project
-    .id
+  ;({ cookie, projectId } = await app.ownerWithProject('Editor benchmark'))
   // Polling a string predicate needs eval, which the app's CSP rightly forbids; the bench bypasses it.
   const context = await browser.newContext({
     viewport: { width: 1600, height: 1000 },
     bypassCSP: true,
   })
   const [name, value] = cookie.split('=') as [string, string]
-  await context.addCookies([{ name, value, url: BASE }])
+  await context.addCookies([{ name, value, url: app.base }])
   // Other work on the machine stretches every wall time below; print it so runs can be compared.
   console.log(
     `Load average at start: ${loadavg()
       .map((l) => l.toFixed(1))
       .join(' ')}`,
   )
-  for (const size of SIZES) await benchDiagram(context, size)
+  for (const size of SIZES) await benchDiagram(app, context, size)
 } finally {
   if (projectId)
-    await api(`/projects/${projectId}`, cookie, undefined, 'DELETE').catch(() => undefined)
+    await app.api(`/projects/${projectId}`, cookie, undefined, 'DELETE').catch(() => undefined)
   await browser.close()
-  server.kill('SIGTERM')
+  app.process.kill('SIGTERM')
 }

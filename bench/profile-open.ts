@@ -4,8 +4,8 @@
  * `T ...` timing lines the page logs. Needs a built client, PostgreSQL and a migrated DB
  * (env DATABASE_URL, default the bench DB).
  */
-import { spawn } from 'node:child_process'
 import { chromium } from '@playwright/test'
+import { startAppServer } from './app-server.ts'
 import { editorBenchDiagram } from './editor-diagram.ts'
 import { CHROMIUM_ARGS, CHROMIUM_EXECUTABLE } from '../e2e/chromium.ts'
 
@@ -28,40 +28,11 @@ interface CpuProfile {
 }
 
 const PORT = 3212
-const BASE = `http://127.0.0.1:${PORT}`
 const DATABASE_URL =
   process.env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/tributary_bench'
 
-const server = spawn('node', ['--import', 'tsx', 'server/index.ts'], {
-  env: {
-    ...process.env,
-    PORT: String(PORT),
-    DATABASE_URL,
-    NODE_ENV: 'test',
-    SIGN_IN_LIMIT: '1000',
-  },
-  stdio: 'ignore',
-})
-for (let i = 0; i < 60; i++) {
-  if (
-    await fetch(`${BASE}/api/health`).then(
-      (r) => r.ok,
-      () => false,
-    )
-  )
-    break
-  await new Promise((r) => setTimeout(r, 250))
-}
-
-async function api(path: string, cookie: string, body?: unknown) {
-  const res = await fetch(`${BASE}/api${path}`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json', cookie },
-    body: JSON.stringify(body),
-  })
-  if (!res.ok) throw new Error(`POST ${path}: ${res.status} ${await res.text()}`)
-  return res
-}
+const app = await startAppServer(PORT, DATABASE_URL)
+const BASE = app.base
 
 const key = (cf: CallFrame, withColumn: boolean) =>
   `${cf.functionName || '(anon)'} ${cf.url.split('/').pop()}:${cf.lineNumber}` +
@@ -104,17 +75,11 @@ const browser = await chromium.launch({
   args: CHROMIUM_ARGS,
 })
 try {
-  const signUp = await api('/auth/sign-up', '', {
-    email: `prof-${Date.now()}@example.test`,
-    name: 'Profile Runner',
-    password: 'bench-password-1',
-  })
-  const cookie = signUp.headers.get('set-cookie')!.split(';')[0]!
-  const projectId = (await (await api('/projects', cookie, { name: 'Profile' })).json()).project.id
+  const { cookie, projectId } = await app.ownerWithProject('Profile')
   const doc = editorBenchDiagram(Number(process.env.N ?? 2000))
   const path = `/projects/${projectId}/diagrams`
-  const diagramId = (await (await api(path, cookie, { name: 'P', document: doc })).json()).diagram
-    .id
+  const diagramId = (await (await app.api(path, cookie, { name: 'P', document: doc })).json())
+    .diagram.id
 
   // Polling a string predicate needs eval, which the app's CSP forbids; profiling bypasses it.
   const context = await browser.newContext({
@@ -173,5 +138,5 @@ try {
   console.log(table(self, 25))
 } finally {
   await browser.close()
-  server.kill()
+  app.process.kill()
 }

@@ -1,6 +1,6 @@
 /** The signed-in user's own settings and password: shapes of /api/account and password reset. */
 import { z } from 'zod'
-import { unitSystemSchema } from './schemas.ts'
+import { newPasswordSchema, unitSystemSchema } from './schemas.ts'
 import { tokenSchema } from './invitations.ts'
 
 export const notificationSettingsSchema = z.object({
@@ -34,12 +34,9 @@ export const updateAccountBodySchema = z
   .refine((b) => Object.keys(b).length > 0, 'nothing to change')
 export type UpdateAccountBody = z.infer<typeof updateAccountBodySchema>
 
-const newPassword = () =>
-  z.string().min(10, 'must be at least 10 characters').max(200, 'must be at most 200 characters')
-
 export const changePasswordBodySchema = z.object({
   currentPassword: z.string().min(1, 'is required').max(200),
-  newPassword: newPassword(),
+  newPassword: newPasswordSchema(),
 })
 export type ChangePasswordBody = z.infer<typeof changePasswordBodySchema>
 
@@ -49,5 +46,5 @@ export const requestPasswordResetBodySchema = z.object({
 export const passwordResetPreviewBodySchema = z.object({ email: z.string() })
 export const completePasswordResetBodySchema = z.object({
   token: tokenSchema,
-  password: newPassword(),
+  password: newPasswordSchema(),
 })

@@ -10,13 +10,20 @@ export const unitSystemSchema = z.enum(['si', 'us'])
 const email = () =>
   z.string().trim().toLowerCase().max(254).pipe(z.email('must be a valid e-mail address'))
 
+/** The shortest password an account may have (the forms say so beside the field). */
+export const PASSWORD_MIN_LENGTH = 10
+
+/** A password being chosen: at sign-up, on an invitation, in a reset or a change. */
+export const newPasswordSchema = () =>
+  z
+    .string()
+    .min(PASSWORD_MIN_LENGTH, `must be at least ${PASSWORD_MIN_LENGTH} characters`)
+    .max(200, 'must be at most 200 characters')
+
 export const signUpBodySchema = z.object({
   email: email(),
   name: z.string().trim().min(1, 'is required').max(80, 'must be at most 80 characters'),
-  password: z
-    .string()
-    .min(10, 'must be at least 10 characters')
-    .max(200, 'must be at most 200 characters'),
+  password: newPasswordSchema(),
 })
 export type SignUpBody = z.infer<typeof signUpBodySchema>
 
