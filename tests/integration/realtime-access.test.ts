@@ -6,36 +6,23 @@ import type {
   OpReject,
   PresenceCursorRelay,
 } from '../../shared/protocol/server-messages.ts'
-import { createDiagramAt, signUpAt, waitUntil, type Session } from './helpers/realtime-http.ts'
-import { smallRiser } from './helpers/small-riser.ts'
-import { startRealtimeServer, type RealtimeTestServer } from './helpers/realtime-server.ts'
-import { openSocket, SyncClient } from './helpers/realtime-sync-client.ts'
+import { signUpAt, waitUntil, type Session } from './helpers/realtime-http.ts'
+import type { RealtimeTestServer } from './helpers/realtime-server.ts'
+import { startRiserWorld, type RiserWorld } from './helpers/riser-world.ts'
+import { openSocket } from './helpers/realtime-sync-client.ts'
 
 let srv: RealtimeTestServer
 let owner: Session
 let editor: Session
-let reviewer: Session
 let projectId: string
 let diagramId: string
-const clients: SyncClient[] = []
-const client = (session: Session) => {
-  const c = new SyncClient(srv.url, session.cookie, diagramId)
-  clients.push(c)
-  return c
-}
+let world: RiserWorld
+const client = (session: Session) => world.client(session)
 beforeAll(async () => {
-  srv = await startRealtimeServer({ REALTIME_RATE: '50', REALTIME_BURST: '60' })
-  owner = await signUpAt(srv.url, 'Orla Owner')
-  editor = await signUpAt(srv.url, 'Eli Editor')
-  reviewer = await signUpAt(srv.url, 'Ravi Reviewer')
-  ;({ projectId, diagramId } = await createDiagramAt(srv.url, owner, smallRiser))
-  await addMember(srv.db, projectId, editor.user.id, 'editor')
-  await addMember(srv.db, projectId, reviewer.user.id, 'reviewer')
+  world = await startRiserWorld()
+  ;({ srv, owner, editor, projectId, diagramId } = world)
 })
-afterAll(async () => {
-  for (const c of clients) c.close()
-  await srv.close()
-})
+afterAll(() => world.close())
 
 describe('presence', () => {
   it('lists who is in the diagram with initials and colour, shares selections, relays cursors', async () => {

@@ -1,11 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { addMember } from '../../server/modules/projects/projects.repo.ts'
 import type { Diagram } from '../../shared/document/model.ts'
 import { EVENTS } from '../../shared/protocol/events.ts'
-import { api, createDiagramAt, signUpAt, waitUntil, type Session } from './helpers/realtime-http.ts'
-import { smallRiser } from './helpers/small-riser.ts'
-import { startRealtimeServer, type RealtimeTestServer } from './helpers/realtime-server.ts'
-import { SyncClient } from './helpers/realtime-sync-client.ts'
+import { api, waitUntil, type Session } from './helpers/realtime-http.ts'
+import type { RealtimeTestServer } from './helpers/realtime-server.ts'
+import { startRiserWorld, type RiserWorld } from './helpers/riser-world.ts'
 
 let srv: RealtimeTestServer
 let owner: Session
@@ -13,12 +11,8 @@ let editor: Session
 let reviewer: Session
 let projectId: string
 let diagramId: string
-const clients: SyncClient[] = []
-const client = (session: Session) => {
-  const c = new SyncClient(srv.url, session.cookie, diagramId)
-  clients.push(c)
-  return c
-}
+let world: RiserWorld
+const client = (session: Session) => world.client(session)
 const stored = async () =>
   (await srv
     .db('diagrams')
@@ -26,18 +20,10 @@ const stored = async () =>
     .first<{ document: Diagram; revision: number }>())!
 
 beforeAll(async () => {
-  srv = await startRealtimeServer({ REALTIME_RATE: '50', REALTIME_BURST: '60' })
-  owner = await signUpAt(srv.url, 'Orla Owner')
-  editor = await signUpAt(srv.url, 'Eli Editor')
-  reviewer = await signUpAt(srv.url, 'Ravi Reviewer')
-  ;({ projectId, diagramId } = await createDiagramAt(srv.url, owner, smallRiser))
-  await addMember(srv.db, projectId, editor.user.id, 'editor')
-  await addMember(srv.db, projectId, reviewer.user.id, 'reviewer')
+  world = await startRiserWorld()
+  ;({ srv, owner, editor, reviewer, projectId, diagramId } = world)
 })
-afterAll(async () => {
-  for (const c of clients) c.close()
-  await srv.close()
-})
+afterAll(() => world.close())
 
 describe('two designers edit one diagram', () => {
   it('converge, keep both edits to different properties, and store what they show', async () => {
