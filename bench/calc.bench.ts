@@ -1,7 +1,7 @@
 /**
  * Calculation benchmark: `npm run bench`. On generated riser trees of 1,000, 10,000 and 100,000
  * nodes it times (medians):
- * - floor: a typed-array post-order sum of one load per node over the same tree;
+ * - floor: a typed-array post-order sum of one load per pipe over the same pipe tree (below);
  * - full/floor: floor and full recompute are timed in alternation, the ratio is the median of
  *   the pairs' ratios (a noisy machine slows both alike);
  * - compile: validation, graph compile (pre-order renumbering) and reading every node and pipe
@@ -69,33 +69,44 @@ function paired(floor: () => void, full: () => void, pairs: number, batch: numbe
   return { floorMs: median(floors), fullMs: median(fulls), ratio: median(ratios) }
 }
 
-// The floor: parent links in pre-order, one reverse pass adding each node's load to its parent.
+/**
+ * The floor: the post-order sum of the same pipe tree the engine sizes, one load per pipe (each
+ * fixture's inlet pipes carry 1.4 WSFU), parent links in pre-order and one reverse pass adding
+ * each pipe's sum to its parent's. A pipe's parent is the inlet of the node it leaves; a water
+ * heater's hot outlets hang from its cold inlet. (The nodes are no tree: a fixture with cold and
+ * hot inlets has two parents.)
+ */
 function floorSum(doc: Diagram): () => number {
-  const index = new Map(doc.nodes.map((n, i) => [n.id, i]))
-  const parent = new Int32Array(doc.nodes.length).fill(-1)
-  for (const p of doc.pipes)
-    if (parent[index.get(p.to)!] === -1) parent[index.get(p.to)!] = index.get(p.from)!
-  const kids: number[][] = doc.nodes.map(() => [])
+  const fixtures = new Set(doc.nodes.filter((n) => n.kind === 'fixture').map((n) => n.id))
+  const inlet = new Map(doc.pipes.map((p, i) => [`${p.to} ${p.system}`, i]))
+  const parent = doc.pipes.map(
+    (p) => inlet.get(`${p.from} ${p.system}`) ?? inlet.get(`${p.from} cold`) ?? -1,
+  )
+  const kids: number[][] = doc.pipes.map(() => [])
   parent.forEach((p, i) => p >= 0 && kids[p]!.push(i))
   const order: number[] = []
-  const stack = [index.get('supply')!]
+  const stack = parent.flatMap((p, i) => (p < 0 ? [i] : []))
+  if (stack.length !== 1) throw new Error('floor: the pipes should leave one supply')
   while (stack.length > 0) {
-    const v = stack.pop()!
-    order.push(v)
-    for (const k of kids[v]!) stack.push(k)
+    const q = stack.pop()!
+    order.push(q)
+    for (const k of kids[q]!) stack.push(k)
   }
-  const ord = Int32Array.from(order)
-  const par = Int32Array.from(ord, (v) => parent[v]!)
-  const own = Float64Array.from(ord, (v) => (doc.nodes[v]!.kind === 'fixture' ? 1.4 : 0))
-  const pos = new Int32Array(doc.nodes.length)
-  ord.forEach((v, k) => (pos[v] = k))
-  const parPos = Int32Array.from(par, (p) => (p < 0 ? -1 : pos[p]!))
-  const sum = new Float64Array(ord.length)
-  return () => {
+  if (order.length !== doc.pipes.length) throw new Error('floor: the pipes are not one tree')
+  const pos = new Int32Array(order.length)
+  order.forEach((q, k) => (pos[q] = k))
+  const parPos = Int32Array.from(order, (q) => (parent[q]! < 0 ? -1 : pos[parent[q]!]!))
+  const own = Float64Array.from(order, (q) => (fixtures.has(doc.pipes[q]!.to) ? 1.4 : 0))
+  const sum = new Float64Array(order.length)
+  const floor = () => {
     sum.set(own)
     for (let k = sum.length - 1; k > 0; k--) sum[parPos[k]!]! += sum[k]!
     return sum[0]!
   }
+  // The supply pipe carries every fixture inlet's load: 1.4 × the number of fixture inlets.
+  const inlets = own.reduce((n, x) => n + (x > 0 ? 1 : 0), 0)
+  if (Math.abs(floor() - 1.4 * inlets) > 1e-6 * inlets) throw new Error('floor: wrong sum')
+  return floor
 }
 
 const fmt = (ms: number) => (ms < 1 ? `${(ms * 1000).toFixed(1)} µs` : `${ms.toFixed(2)} ms`)
