@@ -1,13 +1,17 @@
 // Live calculation edge cases the random property test meets only by chance: the first edit after
-// a full recompute (the margin tree is built lazily from state that edit changes) and the first
-// equipment flow in a diagram (fixture flows were not stored until then).
+// a full recompute (the margin tree is built lazily from state that edit changes), the first
+// equipment flow in a diagram (fixture flows were not stored until then) and the first flush
+// valve (the series and the flush valve curve start to apply).
 import { describe, expect, it } from 'vitest'
 import { computeDiagram } from '../../../shared/calc/compute.ts'
 import { createLiveCalculation } from '../../../shared/calc/incremental.ts'
 import { cold, diagram } from './helpers.ts'
 
 // Supply → meter → main → branch → lavatory, plus a second branch to a sink and a boiler feed.
-function building(feedLps: number) {
+function building(
+  feedLps: number,
+  loadBasis: 'per-fixture' | 'flush-valve-series' = 'per-fixture',
+) {
   return diagram(
     [
       { id: 'supply', kind: 'supply', elevationM: 0, pressureKPa: 300 },
@@ -24,6 +28,7 @@ function building(feedLps: number) {
       cold('to-sink', 'tee', 'sink', 4),
       cold('to-boiler', 'meter', 'boiler', 6),
     ],
+    { loadBasis },
   )
 }
 
@@ -48,5 +53,20 @@ describe('live calculation', () => {
     expect(result.pipes['main']!.fixtureFlowLps).toBe(result.pipes['main']!.flowLps)
     expect(result.pipes['main']!.fixtureFlowLps).toBeGreaterThan(0)
     expect(result.pipes['service']!.equipmentFlowLps).toBeCloseTo(0.5, 12)
+  })
+
+  it('counts the series and the flush valve curve from the first flush valve on', () => {
+    const live = createLiveCalculation(building(0.2, 'flush-valve-series'))
+    live.apply({ type: 'node.update', id: 'lav', patch: { count: 3 } })
+    live.apply({ type: 'node.update', id: 'sink', patch: { fixture: 'water-closet-flush-valve' } })
+    expect(live.result()).toEqual(computeDiagram(live.doc))
+    const main = live.result().pipes['main']!
+    // The first flush valve closet adds 40 WSFU [series.ts]; the lavatories keep their share.
+    expect(main.flushValveClosets).toBe(1)
+    expect(main.curve).toBe('flush-valve')
+    expect(main.load).toBe(live.result().pipes['to-lav']!.load + 40)
+    expect(live.result().pipes['to-lav']!.curve).toBe('flush-tank')
+    live.apply({ type: 'node.update', id: 'lav', patch: { count: 1 } })
+    expect(live.result()).toEqual(computeDiagram(live.doc))
   })
 })
