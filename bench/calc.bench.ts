@@ -90,7 +90,9 @@ function floorSum(doc: Diagram): () => number {
   while (stack.length > 0) {
     const q = stack.pop()!
     order.push(q)
-    for (const k of kids[q]!) stack.push(k)
+    // Children in document order (pushed last to first): visited in reverse, the same sum
+    // ran about 20 % slower, and a floor should be the fastest plain walk.
+    for (let j = kids[q]!.length - 1; j >= 0; j--) stack.push(kids[q]![j]!)
   }
   if (order.length !== doc.pipes.length) throw new Error('floor: the pipes are not one tree')
   const pos = new Int32Array(order.length)
