@@ -14,7 +14,7 @@ export interface CachedDiagram {
 
 /**
  * The last committed document per diagram in this process, so a commit can skip the row lock
- * and the JSONB re-read while no other process (or REST save) has moved the revision on.
+ * and the document re-read while no other process (or REST save) has moved the revision on.
  * Documents are immutable values, so sharing them is safe.
  */
 export class DocumentCache {

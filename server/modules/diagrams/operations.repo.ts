@@ -139,7 +139,7 @@ export async function appendOpsAndState(
          source text, restored_from int, op jsonb)
        RETURNING 1
      )
-     UPDATE diagrams SET document = ?::jsonb, revision = ?, updated_by = ?, updated_at = now(),
+     UPDATE diagrams SET document = ?::json, revision = ?, updated_by = ?, updated_at = now(),
        name = COALESCE(?, name)
      WHERE id = ?
      RETURNING now() AS at, (SELECT count(*) FROM ins) AS inserted`,
@@ -200,7 +200,7 @@ export async function appendIfCurrent(
 // keep a snapshot. One statement for both cases, so each connection plans it once: a second
 // shape used every hundredth commit was planned afresh each time and made the slowest edits.
 const APPEND = `WITH upd AS (
-     UPDATE diagrams AS d SET document = $1::jsonb, revision = $2::int, updated_by = $3::uuid,
+     UPDATE diagrams AS d SET document = $1::json, revision = $2::int, updated_by = $3::uuid,
        updated_at = now(),
        -- as the locked path: the row takes the document's name when that differs
        name = CASE WHEN $4::text <> '' AND d.name IS DISTINCT FROM $5::text THEN $4::text ELSE d.name END
@@ -217,7 +217,7 @@ const APPEND = `WITH upd AS (
      RETURNING 1
    ), snap AS (
      INSERT INTO diagram_snapshots (diagram_id, revision, document)
-     SELECT id, revision, $1::jsonb FROM upd WHERE $10::boolean -- the parameter: cheaper than the row's copy
+     SELECT id, revision, $1::json FROM upd WHERE $10::boolean -- the parameter: cheaper than the row's copy
      ON CONFLICT (diagram_id, revision) DO NOTHING
    )
    SELECT now() AS at, (SELECT count(*) FROM upd)::int AS updated`
