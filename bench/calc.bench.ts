@@ -3,7 +3,7 @@
  * nodes it times (medians):
  * - floor: a typed-array post-order sum of one load per pipe over the same pipe tree (below);
  * - full/floor: floor and full recompute are timed in alternation, the ratio is the median of
- *   the pairs' ratios (a noisy machine slows both alike);
+ *   the pairs' ratios (a busy machine slows both, though not always alike: README);
  * - compile: validation, graph compile (pre-order renumbering) and reading every node and pipe
  *   into the engine's arrays — what a new document costs before any number is computed;
  * - full recompute: sums, sizes, pressures and the budget check on the compiled state (after a

@@ -1,8 +1,9 @@
 /**
  * The optimistic commit: when this process committed the diagram's latest revision itself, the
  * group is decided against the cached document and written by one conditional statement (no
- * BEGIN, no row lock, no document re-read, no COMMIT round trip). It answers only when the database
- * agreed on everything; null sends the group down the locked path, which decides it afresh.
+ * BEGIN, no row lock, no document re-read, no COMMIT round trip). It answers only when the
+ * database agreed on everything; null sends the group down the locked path, which decides it
+ * afresh.
  * The statement is its own transaction, so an op is still acknowledged only after it commits.
  */
 import { can } from '../../../shared/auth/roles.ts'
