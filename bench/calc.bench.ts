@@ -1,7 +1,7 @@
 /**
  * Calculation benchmark: `npm run bench`. On generated riser trees of 1,000, 10,000 and 100,000
  * nodes it times (medians):
- * - floor: a typed-array post-order sum of one load per pipe over the same pipe tree (below);
+ * - floor: a typed-array post-order sum of one load per pipe over the same pipe tree (floorPass);
  * - full/floor: floor and full recompute are timed in alternation, the ratio is the median of
  *   the pairs' ratios (a busy machine slows both, though not always alike: README);
  * - compile: validation, graph compile (pre-order renumbering) and reading every node and pipe
@@ -42,25 +42,25 @@ function time(fn: () => void, reps: number): number {
 }
 
 /**
- * Times `floor` and `full` in alternation, so that both meet the same machine (a shared or
- * throttled processor slows both alike): each pair is one `full` call and `batch` floor calls.
- * Returns the medians and the median of the pairs' ratios.
+ * Times the floor and the engine's full recompute in alternation, so that both meet the same
+ * machine (a shared or throttled processor slows both alike): each pair is one recompute and
+ * `batch` floor passes. Returns the medians and the median of the pairs' ratios.
  */
-function paired(floor: () => void, full: () => void, pairs: number, batch: number) {
+function paired(tree: FloorTree, engine: Engine, pairs: number, batch: number) {
   const until = performance.now() + 300
   for (let i = 0; i < 400 && performance.now() < until; i++) {
-    floor()
-    full()
+    floorPass(tree)
+    engine.recomputeAll()
   }
   const floors: number[] = []
   const fulls: number[] = []
   const ratios: number[] = []
   for (let i = 0; i < pairs; i++) {
     let t = performance.now()
-    for (let b = 0; b < batch; b++) floor()
+    for (let b = 0; b < batch; b++) floorPass(tree)
     const f = (performance.now() - t) / batch
     t = performance.now()
-    full()
+    engine.recomputeAll()
     const u = performance.now() - t
     floors.push(f)
     fulls.push(u)
@@ -69,14 +69,36 @@ function paired(floor: () => void, full: () => void, pairs: number, batch: numbe
   return { floorMs: median(floors), fullMs: median(fulls), ratio: median(ratios) }
 }
 
+/** The floor's tree: pipes in pre-order, each one's parent position and its own load. */
+interface FloorTree {
+  parPos: Int32Array
+  own: Float64Array
+  sum: Float64Array
+}
+
 /**
- * The floor: the post-order sum of the same pipe tree the engine sizes, one load per pipe (each
- * fixture's inlet pipes carry 1.4 WSFU), parent links in pre-order and one reverse pass adding
- * each pipe's sum to its parent's. A pipe's parent is the inlet of the node it leaves; a water
- * heater's hot outlets hang from its cold inlet. (The nodes are no tree: a fixture with cold and
- * hot inlets has two parents.)
+ * One floor pass: every pipe's own load, then one reverse pass adding each pipe's sum to its
+ * parent's. A function over the arrays it is handed, as the engine's passes read the arrays of
+ * the document they serve. (Written as a closure over its own arrays, the floor of the first
+ * tree was compiled with them folded into the machine code as constants — V8 does so for the only
+ * closure of a function — which code serving more than one document never is: at 1,000 nodes
+ * that loop ran in 1.5 µs against 2.5 µs here, while the 10,000 and 100,000 node floors, later
+ * closures, were never folded and ran slower than here.)
  */
-function floorSum(doc: Diagram): () => number {
+function floorPass(t: FloorTree): number {
+  const { parPos, sum } = t
+  sum.set(t.own)
+  for (let k = sum.length - 1; k > 0; k--) sum[parPos[k]!]! += sum[k]!
+  return sum[0]!
+}
+
+/**
+ * The floor's tree: the same pipe tree the engine sizes, one load per pipe (each fixture's inlet
+ * pipes carry 1.4 WSFU), parent links in pre-order. A pipe's parent is the inlet of the node it
+ * leaves; a water heater's hot outlets hang from its cold inlet. (The nodes are no tree: a
+ * fixture with cold and hot inlets has two parents.)
+ */
+function floorTree(doc: Diagram): FloorTree {
   const fixtures = new Set(doc.nodes.filter((n) => n.kind === 'fixture').map((n) => n.id))
   const inlet = new Map(doc.pipes.map((p, i) => [`${p.to} ${p.system}`, i]))
   const parent = doc.pipes.map(
@@ -97,18 +119,17 @@ function floorSum(doc: Diagram): () => number {
   if (order.length !== doc.pipes.length) throw new Error('floor: the pipes are not one tree')
   const pos = new Int32Array(order.length)
   order.forEach((q, k) => (pos[q] = k))
-  const parPos = Int32Array.from(order, (q) => (parent[q]! < 0 ? -1 : pos[parent[q]!]!))
-  const own = Float64Array.from(order, (q) => (fixtures.has(doc.pipes[q]!.to) ? 1.4 : 0))
-  const sum = new Float64Array(order.length)
-  const floor = () => {
-    sum.set(own)
-    for (let k = sum.length - 1; k > 0; k--) sum[parPos[k]!]! += sum[k]!
-    return sum[0]!
+  const tree = {
+    parPos: Int32Array.from(order, (q) => (parent[q]! < 0 ? -1 : pos[parent[q]!]!)),
+    own: Float64Array.from(order, (q) => (fixtures.has(doc.pipes[q]!.to) ? 1.4 : 0)),
+    sum: new Float64Array(order.length),
   }
   // The supply pipe carries every fixture inlet's load: 1.4 × the number of fixture inlets.
-  const inlets = own.reduce((n, x) => n + (x > 0 ? 1 : 0), 0)
-  if (Math.abs(floor() - 1.4 * inlets) > 1e-6 * inlets) throw new Error('floor: wrong sum')
-  return floor
+  const inlets = tree.own.reduce((n, x) => n + (x > 0 ? 1 : 0), 0)
+  if (Math.abs(floorPass(tree) - 1.4 * inlets) > 1e-6 * inlets) {
+    throw new Error('floor: wrong sum')
+  }
+  return tree
 }
 
 const fmt = (ms: number) => (ms < 1 ? `${(ms * 1000).toFixed(1)} µs` : `${ms.toFixed(2)} ms`)
@@ -120,12 +141,12 @@ console.log(
 )
 for (const target of [1_000, 10_000, 100_000]) {
   const doc = riserTreeDiagram(target)
-  const floor = floorSum(doc)
+  const tree = floorTree(doc)
   const copy = () => ({ ...doc, nodes: doc.nodes.slice(), pipes: doc.pipes.slice() })
   const compileMs = time(() => new Engine(copy(), false), target >= 100_000 ? 3 : 7)
   const engine = new Engine(copy())
   const pairs = target >= 100_000 ? 40 : 300
-  const { floorMs, fullMs, ratio } = paired(floor, () => engine.recomputeAll(), pairs, 8)
+  const { floorMs, fullMs, ratio } = paired(tree, engine, pairs, 8)
   // Warm the JIT first: the editor calls computeDiagram on every edit.
   if (target < 100_000) for (let i = 0; i < 20; i++) computeDiagram(doc)
   const computeMs = time(() => computeDiagram(doc), target >= 100_000 ? 3 : 15)
