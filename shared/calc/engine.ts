@@ -23,7 +23,18 @@ import { compileGraph, type CompiledGraph } from './graph.ts'
 import { hydraulicsAt, recomputeAll } from './hydraulics.ts'
 import { MarginTree } from './margin-tree.ts'
 import { sizeAtLeast, sizeIndex, type Material } from './materials.ts'
-import { AFTER_DEVICE, CLASS, FIN, FLAGS, FLOW, FOUT, IOUT, LEQ, REQ, RISE } from './pipe-record.ts'
+import {
+  AFTER_DEVICE,
+  CLASS,
+  FLAGS,
+  FLOW,
+  IREC,
+  LEQ,
+  PARENT,
+  REC,
+  REQ,
+  RISE,
+} from './pipe-record.ts'
 import { budget, nodeOut, pressurePass, staticPass } from './pressures.ts'
 import { capacities, SIZE_TABLES } from './size-tables.ts'
 import type { CalcIssue } from './types.ts'
@@ -94,11 +105,6 @@ export class Engine {
   /** Smallest size index allowed by the fixture the pipe supplies (0 when none). */
   readonly minSize: Int32Array
   readonly invalid: Uint8Array
-  /**
-   * Float inputs of the sweep, interleaved (pipe-record.ts): equivalent length, rise, and a copy
-   * of the required pressure of the node the pipe feeds, so the sweep reads front to back.
-   */
-  readonly fin: Float64Array
   // Per pipe: own contribution of the node it feeds (loads in milli-WSFU), then subtree sums.
   readonly oLoad: Float64Array
   readonly oWC: Float64Array
@@ -113,10 +119,13 @@ export class Engine {
   /** Set once any node has flush valves / equipment flow: until then those sums stay zero. */
   valvesOn = false
   equipmentOn = false
-  // Per pipe: results, interleaved (pipe-record.ts): flow, friction and residual pressure in
-  // `fo`; sizing class, budget enlargement, size and flags in `io`.
-  readonly fo: Float64Array
-  readonly io: Int32Array
+  /**
+   * Per pipe, interleaved (pipe-record.ts): equivalent length, rise, a copy of the required
+   * pressure of the node the pipe feeds, flow, friction and residual pressure in `rec`; sizing
+   * class, budget enlargement, size, flags and a copy of the parent link in `irec`.
+   */
+  readonly rec: Float64Array
+  readonly irec: Int32Array
   /** Probable flow of the fixtures alone, L/s: written once some equipment has a flow. */
   readonly fixtureFlow: Float64Array
   /** Static pressure at each pipe outlet, kPa (pressures.ts staticPass). */
@@ -169,11 +178,11 @@ export class Engine {
     this.locked = i32().fill(-1)
     this.minSize = i32()
     this.invalid = new Uint8Array(nP)
-    this.fin = new Float64Array(nP * FIN)
     ;[this.oLoad, this.oWC, this.oU, this.oFV, this.oEq] = [f64(), f64(), f64(), f64(), f64()]
     ;[this.sLoad, this.sWC, this.sU, this.sFV, this.sEq] = [f64(), f64(), f64(), f64(), f64()]
-    this.fo = new Float64Array(nP * FOUT)
-    this.io = new Int32Array(nP * IOUT)
+    this.rec = new Float64Array(nP * REC)
+    this.irec = new Int32Array(nP * IREC)
+    for (let q = 0; q < nP; q++) this.irec[q * IREC + PARENT] = this.g.parent[q]!
     this.fixtureFlow = f64()
     this.staticOut = f64()
     this.tree = new MarginTree(nP)
@@ -200,22 +209,22 @@ export class Engine {
     const { outStart, outPipes } = this.g
     const device = this.cap[i] !== Infinity || this.devLoss[i] !== 0 ? AFTER_DEVICE : 0
     for (let j = outStart[i]!; j < outStart[i + 1]!; j++) {
-      const f = outPipes[j]! * IOUT + FLAGS
-      this.io[f] = (this.io[f]! & ~AFTER_DEVICE) | device
+      const f = outPipes[j]! * IREC + FLAGS
+      this.irec[f] = (this.irec[f]! & ~AFTER_DEVICE) | device
     }
     const qc = this.g.inCold[i]!
     const qh = this.g.inHot[i]!
     // -Infinity where nothing is required, so that the margin is +Infinity without a test.
     const req = c.requiredKPa === c.requiredKPa ? c.requiredKPa : -Infinity
-    if (qc >= 0) this.fin[qc * FIN + REQ] = req
-    if (qh >= 0) this.fin[qh * FIN + REQ] = req
+    if (qc >= 0) this.rec[qc * REC + REQ] = req
+    if (qh >= 0) this.rec[qh * REC + REQ] = req
     const inlet = qc >= 0 ? qc : qh
     if (k === 'equipment' && inlet >= 0) {
       this.oEq[inlet] = c.flow
       if (c.flow !== 0 && !this.equipmentOn) {
         // Until now fixture flow equalled flow and was not stored (hydraulics.ts).
         this.equipmentOn = true
-        for (let q = 0; q < this.g.pipeCount; q++) this.fixtureFlow[q] = this.fo[q * FOUT + FLOW]!
+        for (let q = 0; q < this.g.pipeCount; q++) this.fixtureFlow[q] = this.rec[q * REC + FLOW]!
       }
     }
     if (k !== 'fixture') return
@@ -255,12 +264,12 @@ export class Engine {
     const badSize = pipe.nominal !== undefined && lockedIdx < 0
     const badLength = !(Number.isFinite(pipe.lengthM) && pipe.lengthM > 0)
     this.invalid[q] = !m || badSize || badLength ? 1 : 0
-    this.fin[q * FIN + LEQ] = badLength
+    this.rec[q * REC + LEQ] = badLength
       ? 0
       : pipe.lengthM * (1 + this.doc.settings.fittingAllowance)
     const nodes = this.doc.nodes
     const rise = nodes[this.g.to[q]!]!.elevationM - nodes[this.g.from[q]!]!.elevationM
-    this.fin[q * FIN + RISE] = KPA_PER_METRE * rise
+    this.rec[q * REC + RISE] = KPA_PER_METRE * rise
     this.minSize[q] = this.fixtureMinimum(q)
     this.classify(q)
   }
@@ -268,7 +277,7 @@ export class Engine {
   /** Pipe q's sizing class from its capacity row, locked size and fixture minimum. */
   classify(q: number): void {
     const row = this.invalid[q] ? -1 : this.capStart[q]!
-    this.io[q * IOUT + CLASS] = sizingClass(row, this.locked[q]!, this.minSize[q]!)
+    this.irec[q * IREC + CLASS] = sizingClass(row, this.locked[q]!, this.minSize[q]!)
   }
 
   /** Size index of the minimum supply of the fixture pipe q feeds (0 when it feeds none). */

@@ -18,15 +18,15 @@ import { darcyLossKPa } from './friction.ts'
 import {
   AFTER_DEVICE,
   CLASS,
-  FIN,
   FLAGS,
   FLOW,
-  FOUT,
   FRICTION,
   GIVEN_UP,
-  IOUT,
+  IREC,
   LEQ,
   OUT_P,
+  PARENT,
+  REC,
   REQ,
   RISE,
   SIZE,
@@ -99,9 +99,8 @@ function perMetre(e: Engine, q: number, s: number, pw: number): number {
 // This check ties the literals to the layout in pipe-record.ts and demand-memo.ts.
 // prettier-ignore
 const LAYOUT: [number, number][] = [
-  [FIN, 3], [LEQ, 0], [RISE, 1], [REQ, 2],
-  [FOUT, 3], [FLOW, 0], [FRICTION, 1], [OUT_P, 2],
-  [IOUT, 4], [CLASS, 0], [UP, 1], [SIZE, 2], [FLAGS, 3],
+  [REC, 6], [LEQ, 0], [RISE, 1], [REQ, 2], [FLOW, 3], [FRICTION, 4], [OUT_P, 5],
+  [IREC, 5], [CLASS, 0], [UP, 1], [SIZE, 2], [FLAGS, 3], [PARENT, 4],
   [GIVEN_UP, 1], [VALVE_CURVE, 2], [AFTER_DEVICE, 4],
   [MEMO_STRIDE, 5], [M_KEY, 0], [M_LPS, 1], [M_POW, 2], [M_BASE, 3], [M_PER_M, 4],
   [MEMO_CLASSES, 262144],
@@ -169,8 +168,8 @@ function sweepFrom(e: Engine, lo: number, hi: number, parts: number): number {
   const pressures = (parts & PRESSURES) !== 0
   const givenUp = e.givenUpCount > 0
   const anyUp = e.upsized.length > 0
-  const { parent, from, hot, supply } = e.g
-  const { sLoad, sWC, sU, sFV, sEq, matStart, matCount, invalid, fin, fo, io } = e
+  const { from, hot, supply } = e.g
+  const { sLoad, sWC, sU, sFV, sEq, matStart, matCount, invalid, rec, irec } = e
   const { fixtureFlow, cap, devLoss } = e
   const { idMm, roughnessMm } = e.sizes
   const mem = e.memo.rows
@@ -185,9 +184,8 @@ function sweepFrom(e: Engine, lo: number, hi: number, parts: number): number {
   const end = hi & 0x3ffffff
   let q = lo & 0x3ffffff
   for (; q < end; q++) {
-    const fi = q * 3 /* FIN */
-    const o = q * 3 /* FOUT */
-    const i = q * 4 /* IOUT */
+    const r = q * 6 /* REC */
+    const i = q * 5 /* IREC */
     let fr: number
     let s: number
     if (hydraulics) {
@@ -199,10 +197,10 @@ function sweepFrom(e: Engine, lo: number, hi: number, parts: number): number {
         if (series) milli += seriesUnits(wc, u) * LOAD_SCALE
         fv = wc + u + sFV[q]! > 0 ? 1 : 0
         // VALVE_CURVE; without flush valves it stays 0 (valvesOn never reverts).
-        io[i + 3 /* FLAGS */] = (io[i + 3]! & ~2) | (fv << 1)
+        irec[i + 3 /* FLAGS */] = (irec[i + 3]! & ~2) | (fv << 1)
       }
       // Memo key and slot as demand-memo.ts describes them (MEMO_CLASSES = 262144).
-      const cls = io[i + 0 /* CLASS */]!
+      const cls = irec[i + 0 /* CLASS */]!
       const key = (milli * 262144 + cls) * 2 + fv
       const m = (Math.imul(milli ^ Math.imul(cls * 2 + fv, 0x85ebca6b), 0x9e3779b1) >>> shift) * 5
       if (mem[m + 0 /* M_KEY */] !== key) {
@@ -226,10 +224,10 @@ function sweepFrom(e: Engine, lo: number, hi: number, parts: number): number {
           perM = perMetre(e, q, b, hwFlowTerm(f))
         }
       }
-      fo[o + 0 /* FLOW */] = f
+      rec[r + 3 /* FLOW */] = f
       s = b
       if (b >= 0) {
-        const u = anyUp ? io[i + 1 /* UP */]! : 0
+        const u = anyUp ? irec[i + 1 /* UP */]! : 0
         if (u !== 0) {
           s = Math.min(b + u, matCount[q]! - 1)
           // The flow term is read only here: an unconditional read cost 4 % of the sweep.
@@ -238,28 +236,28 @@ function sweepFrom(e: Engine, lo: number, hi: number, parts: number): number {
       } else if (!invalid[q]) {
         unsized++
       }
-      io[i + 2 /* SIZE */] = s
+      irec[i + 2 /* SIZE */] = s
       if (!darcy) {
-        fr = perM * fin[fi + 0 /* LEQ */]! // perM is 0 without a size or a flow
+        fr = perM * rec[r + 0 /* LEQ */]! // perM is 0 without a size or a flow
       } else if (s >= 0 && f > 0) {
         const k = matStart[q]! + s
         const w = hot[q] ? water.hot : water.cold
-        fr = darcyLossKPa(f, idMm[k]!, fin[fi + 0 /* LEQ */]!, roughnessMm[k]!, w.nu, w.rho)
+        fr = darcyLossKPa(f, idMm[k]!, rec[r + 0 /* LEQ */]!, roughnessMm[k]!, w.nu, w.rho)
       } else {
         fr = 0
       }
-      fo[o + 1 /* FRICTION */] = fr
+      rec[r + 4 /* FRICTION */] = fr
     } else {
-      fr = fo[o + 1 /* FRICTION */]!
-      s = io[i + 2 /* SIZE */]!
+      fr = rec[r + 4 /* FRICTION */]!
+      s = irec[i + 2 /* SIZE */]!
     }
     if (pressures) {
-      const p = parent[q]!
+      const p = irec[i + 4 /* PARENT */]!
       let inP: number
       if (p >= 0) {
-        inP = fo[p * 3 + 2 /* OUT_P */]!
+        inP = rec[p * 6 + 5 /* OUT_P */]!
         // As nodeOut (pressures.ts): a valve caps, a device loses; a junction passes on.
-        if (io[i + 3 /* FLAGS */]! & 4 /* AFTER_DEVICE */) {
+        if (irec[i + 3 /* FLAGS */]! & 4 /* AFTER_DEVICE */) {
           const v = from[q]!
           inP = Math.min(inP, cap[v]!) - devLoss[v]!
         }
@@ -267,12 +265,12 @@ function sweepFrom(e: Engine, lo: number, hi: number, parts: number): number {
         inP = from[q] === supply ? supplyKPa : unknown
       }
       // NaN marks an unknown pressure: not reached from the supply, or a pipe on the way unsized.
-      const out = s >= 0 ? inP - (fr + fin[fi + 1 /* RISE */]!) : unknown // as dropAt
-      fo[o + 2 /* OUT_P */] = out
+      const out = s >= 0 ? inP - (fr + rec[r + 1 /* RISE */]!) : unknown // as dropAt
+      rec[r + 5 /* OUT_P */] = out
       // As marginAt (pressures.ts), which builds the margin tree from the same numbers: +Infinity
       // where nothing is required (REQ is -Infinity), NaN where unknown (never the smallest).
-      const margin = out - fin[fi + 2 /* REQ */]!
-      if (margin < minMargin && !(givenUp && io[i + 3 /* FLAGS */]! & 1) /* GIVEN_UP */) {
+      const margin = out - rec[r + 2 /* REQ */]!
+      if (margin < minMargin && !(givenUp && irec[i + 3 /* FLAGS */]! & 1) /* GIVEN_UP */) {
         minMargin = margin
       }
     }
@@ -289,9 +287,9 @@ export function hydraulicsAt(e: Engine, q: number): void {
 
 /** Friction of pipe q at its current size (after the budget enlarged it). */
 export function sizeHydraulics(e: Engine, q: number): void {
-  const s = e.io[q * IOUT + SIZE]!
-  const f = e.fo[q * FOUT + FLOW]!
-  const leq = e.fin[q * FIN + LEQ]!
+  const s = e.irec[q * IREC + SIZE]!
+  const f = e.rec[q * REC + FLOW]!
+  const leq = e.rec[q * REC + LEQ]!
   let fr = 0
   if (s >= 0 && f > 0) {
     if (e.darcy) {
@@ -303,7 +301,7 @@ export function sizeHydraulics(e: Engine, q: number): void {
       fr = perMetre(e, q, s, hwFlowTerm(f)) * leq
     }
   }
-  e.fo[q * FOUT + FRICTION] = fr
+  e.rec[q * REC + FRICTION] = fr
 }
 
 /** Sums, sizes and pressures from scratch, then the pressure budget if some fixture is short. */

@@ -8,14 +8,13 @@
 import type { Engine } from './engine.ts'
 import { hydraulicsAt, PRESSURES, sizeHydraulics, sweep } from './hydraulics.ts'
 import {
-  FIN,
   FLAGS,
-  FOUT,
   FRICTION,
   GIVEN_UP,
-  IOUT,
+  IREC,
   LEQ,
   OUT_P,
+  REC,
   REQ,
   RISE,
   SIZE,
@@ -31,7 +30,7 @@ export function nodeOut(e: Engine, v: number, inP: number): number {
 
 /** Records the pressure arriving at each pressure-reducing valve (for live corrections). */
 export function updatePrvInlets(e: Engine): void {
-  for (const v of e.g.prvs) e.prvIn[v] = e.fo[inletOf(e, v) * FOUT + OUT_P]!
+  for (const v of e.g.prvs) e.prvIn[v] = e.rec[inletOf(e, v) * REC + OUT_P]!
 }
 
 /**
@@ -41,14 +40,14 @@ export function updatePrvInlets(e: Engine): void {
  */
 export function staticPass(e: Engine): void {
   const { parent, from, supply, pipeCount } = e.g
-  const { fin, staticOut } = e
+  const { rec, staticOut } = e
   const supplyKPa = supply >= 0 ? nodeOut(e, supply, 0) : 0
   for (let q = 0; q < pipeCount; q++) {
     const p = parent[q]!
     let inStatic = 0
     if (p >= 0) inStatic = e.nodeOutStatic(from[q]!, staticOut[p]!)
     else if (from[q] === supply) inStatic = supplyKPa
-    staticOut[q] = inStatic - fin[q * FIN + RISE]!
+    staticOut[q] = inStatic - rec[q * REC + RISE]!
   }
 }
 
@@ -66,7 +65,7 @@ export function pressurePass(e: Engine): number {
 
 /** Pressure drop over pipe q: friction plus static head, kPa. */
 export function dropAt(e: Engine, q: number): number {
-  return e.fo[q * FOUT + FRICTION]! + e.fin[q * FIN + RISE]!
+  return e.rec[q * REC + FRICTION]! + e.rec[q * REC + RISE]!
 }
 
 /**
@@ -75,8 +74,8 @@ export function dropAt(e: Engine, q: number): number {
  * same inline (without the test for an unknown pressure: NaN is never the smallest).
  */
 export function marginAt(e: Engine, q: number): number {
-  const m = e.fo[q * FOUT + OUT_P]! - e.fin[q * FIN + REQ]!
-  return m !== m || e.io[q * IOUT + FLAGS]! & GIVEN_UP ? Infinity : m
+  const m = e.rec[q * REC + OUT_P]! - e.rec[q * REC + REQ]!
+  return m !== m || e.irec[q * IREC + FLAGS]! & GIVEN_UP ? Infinity : m
 }
 
 /** Hands the margin tree its leaves, to build when the live path first needs it. */
@@ -108,10 +107,10 @@ export function pathPressure(e: Engine, q: number): number {
 /** Undoes every budget enlargement and given-up fixture; returns the pipes it had enlarged. */
 export function clearBudget(e: Engine): number[] {
   const upsized = e.upsized
-  for (const q of upsized) e.io[q * IOUT + UP] = 0
+  for (const q of upsized) e.irec[q * IREC + UP] = 0
   e.upsized = []
   if (e.givenUpCount > 0) {
-    for (let q = 0; q < e.g.pipeCount; q++) e.io[q * IOUT + FLAGS]! &= ~GIVEN_UP
+    for (let q = 0; q < e.g.pipeCount; q++) e.irec[q * IREC + FLAGS]! &= ~GIVEN_UP
   }
   e.givenUpCount = 0
   return upsized
@@ -132,29 +131,29 @@ export function budget(e: Engine): void {
  */
 export function budgetRounds(e: Engine): void {
   const { parent, end } = e.g
-  const { fin, fo, io } = e
+  const { rec, irec } = e
   while (e.tree.min() < 0) {
     const q = e.tree.argMin()
     let best = -1
     let bestRate = 0
     for (let x = q; x >= 0; x = parent[x]!) {
-      const s = io[x * IOUT + SIZE]!
+      const s = irec[x * IREC + SIZE]!
       if (e.locked[x]! >= 0 || e.matStart[x]! < 0 || s < 0 || s === e.matCount[x]! - 1) continue
-      const rate = fo[x * FOUT + FRICTION]! / fin[x * FIN + LEQ]!
+      const rate = rec[x * REC + FRICTION]! / rec[x * REC + LEQ]!
       if (rate > bestRate || (rate === bestRate && best >= 0 && e.pipeIds[x]! < e.pipeIds[best]!)) {
         best = x
         bestRate = rate
       }
     }
     if (best < 0) {
-      io[q * IOUT + FLAGS]! |= GIVEN_UP
+      irec[q * IREC + FLAGS]! |= GIVEN_UP
       e.givenUpCount++
       e.tree.set(q, Infinity)
       continue
     }
-    if (io[best * IOUT + UP] === 0) e.upsized.push(best)
-    io[best * IOUT + UP]!++
-    io[best * IOUT + SIZE]!++
+    if (irec[best * IREC + UP] === 0) e.upsized.push(best)
+    irec[best * IREC + UP]!++
+    irec[best * IREC + SIZE]!++
     sizeHydraulics(e, best)
     sweep(e, best, end[best]!, PRESSURES)
     for (let x = best; x < end[best]!; x++) e.tree.set(x, marginAt(e, x))

@@ -6,18 +6,7 @@
 import { FIXTURES } from './fixtures.ts'
 import type { Engine } from './engine.ts'
 import { baseSize, loadAt, velocitySize } from './hydraulics.ts'
-import {
-  FIN,
-  FLAGS,
-  FLOW,
-  FOUT,
-  FRICTION,
-  IOUT,
-  LEQ,
-  OUT_P,
-  SIZE,
-  VALVE_CURVE,
-} from './pipe-record.ts'
+import { FLAGS, FLOW, FRICTION, IREC, LEQ, OUT_P, REC, SIZE, VALVE_CURVE } from './pipe-record.ts'
 import { KIND } from './graph.ts'
 import { nominalInches } from './materials.ts'
 import type {
@@ -36,7 +25,7 @@ export function inletPressure(e: Engine, q: number): number | null {
   const p = e.g.parent[q]!
   const v = e.g.from[q]!
   if (p < 0) return v === e.g.supply ? e.nodeOut(v, 0) : null
-  const outP = e.fo[p * FOUT + OUT_P]!
+  const outP = e.rec[p * REC + OUT_P]!
   return Number.isNaN(outP) ? null : e.nodeOut(v, outP)
 }
 
@@ -44,20 +33,20 @@ export function inletPressure(e: Engine, q: number): number | null {
 export function pipeResult(e: Engine, q: number): PipeResult {
   const pipe = e.docPipe(q)
   const m = e.material[q]
-  const o = q * FOUT
-  const i = q * IOUT
-  const s = e.io[i + SIZE]!
+  const o = q * REC
+  const i = q * IREC
+  const s = e.irec[i + SIZE]!
   const sized = s >= 0 && m !== null
-  const flow = e.fo[o + FLOW]!
+  const flow = e.rec[o + FLOW]!
   const fixtureFlow = e.equipmentOn ? e.fixtureFlow[q]! : flow
-  const known = !Number.isNaN(e.fo[o + OUT_P])
+  const known = !Number.isNaN(e.rec[o + OUT_P])
   return {
     id: pipe.id,
     system: pipe.system,
     load: loadAt(e, q),
     flushValveClosets: e.sWC[q]!,
     flushValveUrinals: e.sU[q]!,
-    curve: e.io[i + FLAGS]! & VALVE_CURVE ? 'flush-valve' : 'flush-tank',
+    curve: e.irec[i + FLAGS]! & VALVE_CURVE ? 'flush-valve' : 'flush-tank',
     demandTable: e.tableKey,
     fixtureFlowLps: fixtureFlow,
     equipmentFlowLps: flow - fixtureFlow,
@@ -69,24 +58,24 @@ export function pipeResult(e: Engine, q: number): PipeResult {
     fixtureMinimum: fixtureMinimum(e, q),
     insideDiameterMm: sized ? m.sizes[s]!.insideDiameterMm : null,
     velocityMps: sized ? flow / 1000 / e.sizes.area[e.matStart[q]! + s]! : null,
-    equivalentLengthM: e.fin[q * FIN + LEQ]!,
-    lossKPa: sized ? e.fo[o + FRICTION]! : null,
+    equivalentLengthM: e.rec[q * REC + LEQ]!,
+    lossKPa: sized ? e.rec[o + FRICTION]! : null,
     inletPressureKPa: known ? inletPressure(e, q) : null,
-    outletPressureKPa: known ? e.fo[o + OUT_P]! : null,
+    outletPressureKPa: known ? e.rec[o + OUT_P]! : null,
   }
 }
 
 /** Whether pipe q's load lies beyond the last row of its demand column (extrapolated). */
 function beyondTable(e: Engine, q: number): boolean {
-  const rows = e.columns[e.io[q * IOUT + FLAGS]! & VALVE_CURVE ? 1 : 0]!.load
+  const rows = e.columns[e.irec[q * IREC + FLAGS]! & VALVE_CURVE ? 1 : 0]!.load
   return loadAt(e, q) > rows[rows.length - 1]!
 }
 
 function sizeBasis(e: Engine, q: number): SizeBasis {
   if (e.locked[q]! >= 0) return 'locked'
-  const size = e.io[q * IOUT + SIZE]!
+  const size = e.irec[q * IREC + SIZE]!
   if (size < 0) return 'none'
-  const velSize = velocitySize(e, q, e.fo[q * FOUT + FLOW]!)
+  const velSize = velocitySize(e, q, e.rec[q * REC + FLOW]!)
   const base = baseSize(e, q, velSize)
   if (size > base) return 'pressure-budget'
   return base > velSize ? 'fixture-minimum' : 'velocity'
@@ -122,7 +111,7 @@ export function nodeResult(e: Engine, v: number): NodeResult {
     const staticOut = e.staticOut[q]!
     const st = kind === KIND.fixture ? staticOut : e.nodeOutStatic(v, staticOut)
     statics = statics === null ? st : Math.max(statics, st)
-    const outP = e.fo[q * FOUT + OUT_P]!
+    const outP = e.rec[q * REC + OUT_P]!
     if (Number.isNaN(outP)) continue
     const p = kind === KIND.fixture ? outP : e.nodeOut(v, outP)
     pressure = pressure === null ? p : Math.min(pressure, p)
@@ -167,7 +156,7 @@ function designIssues(
   for (let q = 0; q < e.g.pipeCount; q++) {
     const r = pipes[e.pipeIds[q]!]!
     if (e.invalid[q]) continue
-    if (e.io[q * IOUT + SIZE]! < 0) {
+    if (e.irec[q * IREC + SIZE]! < 0) {
       const limit = settings.velocityLimits[r.system]
       const largest = e.material[q]!.sizes.at(-1)!.nominal
       issues.push({

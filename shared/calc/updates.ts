@@ -8,7 +8,7 @@
 import type { DiagramNode, Pipe } from '../document/model.ts'
 import type { Engine, UpdateMode } from './engine.ts'
 import { hydraulicsAt } from './hydraulics.ts'
-import { IOUT, SIZE } from './pipe-record.ts'
+import { IREC, SIZE } from './pipe-record.ts'
 import { budget, dropAt, inletOf, pathPressure, staticPass } from './pressures.ts'
 
 /** What an engine update did and which pipes (internal indices) it touched. */
@@ -122,9 +122,9 @@ function finish(e: Engine, touched: number[], clean: boolean): UpdateResult {
   const end = e.g.end
   for (const q of touched) {
     const oldDrop = dropAt(e, q)
-    const wasUnsized = e.io[q * IOUT + SIZE]! < 0 && !e.invalid[q]
+    const wasUnsized = e.irec[q * IREC + SIZE]! < 0 && !e.invalid[q]
     hydraulicsAt(e, q)
-    const isUnsized = e.io[q * IOUT + SIZE]! < 0 && !e.invalid[q]
+    const isUnsized = e.irec[q * IREC + SIZE]! < 0 && !e.invalid[q]
     e.unsizedCount += (isUnsized ? 1 : 0) - (wasUnsized ? 1 : 0)
     const d = dropAt(e, q) - oldDrop
     if (d !== 0) e.tree.rangeAdd(q, end[q]!, -d)
