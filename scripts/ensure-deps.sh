@@ -1,6 +1,8 @@
 #!/usr/bin/env bash
 # Installs what is missing on a fresh machine: npm packages, and as root Debian's PostgreSQL
-# server (and Chromium when called with --browser). Safe to run again: it only acts on gaps.
+# server; with --test also what the tests need besides: Chromium for the end-to-end tests and
+# poppler-utils, whose pdftotext and pdffonts read the PDF reports in the integration tests.
+# Safe to run again: it only acts on gaps.
 set -euo pipefail
 ROOT="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$ROOT"
@@ -27,7 +29,13 @@ if ! ls /usr/lib/postgresql/*/bin/initdb >/dev/null 2>&1; then
   apt_install postgresql
 fi
 
-if [ "${1:-}" = "--browser" ] && [ ! -x /usr/bin/chromium ]; then
-  echo "Installing Chromium for the end-to-end tests…"
-  apt_install chromium
+if [ "${1:-}" = "--test" ]; then
+  if [ ! -x /usr/bin/chromium ]; then
+    echo "Installing Chromium for the end-to-end tests…"
+    apt_install chromium
+  fi
+  if [ ! -x /usr/bin/pdftotext ] || [ ! -x /usr/bin/pdffonts ]; then
+    echo "Installing poppler-utils for the report tests…"
+    apt_install poppler-utils
+  fi
 fi

@@ -1,11 +1,11 @@
 #!/usr/bin/env bash
-# `npm test`: install what is missing (Chromium too), start a throw-away PostgreSQL cluster on its
+# `npm test`: install what is missing (Chromium and poppler-utils too), start a throw-away PostgreSQL cluster on its
 # own port, then static checks (types, lint, formatting), unit, integration and end-to-end tests.
 # The cluster is removed afterwards.
 set -euo pipefail
 ROOT="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$ROOT"
-bash scripts/ensure-deps.sh --browser
+bash scripts/ensure-deps.sh --test
 
 export PGPORT="${TEST_PGPORT:-54339}"
 export PGBASE="$(mktemp -d /tmp/tributary-test-pg.XXXXXX)"
