@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
-# `npm test`: install what is missing (Chromium and poppler-utils too), start a throw-away PostgreSQL cluster on its
-# own port, then static checks (types, lint, formatting), unit, integration and end-to-end tests.
-# The cluster is removed afterwards.
+# `npm test`: install what is missing (Chromium and poppler-utils too), start a throw-away
+# PostgreSQL cluster on its own port, then static checks (types, lint, formatting), unit,
+# integration and end-to-end tests. The cluster is removed afterwards.
 set -euo pipefail
 ROOT="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$ROOT"

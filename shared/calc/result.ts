@@ -58,7 +58,7 @@ export function pipeResult(e: Engine, q: number): PipeResult {
     fixtureMinimum: fixtureMinimum(e, q),
     insideDiameterMm: sized ? m.sizes[s]!.insideDiameterMm : null,
     velocityMps: sized ? flow / 1000 / e.sizes.area[e.matStart[q]! + s]! : null,
-    equivalentLengthM: e.rec[q * REC + LEQ]!,
+    equivalentLengthM: e.rec[o + LEQ]!,
     lossKPa: sized ? e.rec[o + FRICTION]! : null,
     inletPressureKPa: known ? inletPressure(e, q) : null,
     outletPressureKPa: known ? e.rec[o + OUT_P]! : null,
